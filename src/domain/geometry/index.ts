@@ -1,0 +1,2 @@
+export * from './vec3.ts';
+export * from './box.ts';

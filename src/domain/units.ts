@@ -1,0 +1,66 @@
+/**
+ * Units used across the core. Internally everything is SI-ish engineering units:
+ * millimetres for lengths and positions, kilograms for masses, newtons for forces,
+ * degrees for angles at the boundary. Names carry the unit where a number crosses a
+ * boundary (massKg, lengthMm, angleDeg). Conversion happens only for display.
+ */
+
+/** Standard gravity, m/s² (CGPM 1901; ISO 80000-3). */
+export const STANDARD_GRAVITY_M_PER_S2 = 9.80665;
+
+/** Exact by definition (international yard and pound agreement, 1959). */
+export const MM_PER_INCH = 25.4;
+export const KG_PER_POUND = 0.45359237;
+
+export type LengthUnit = 'mm' | 'cm' | 'm' | 'in' | 'ft';
+export type MassUnit = 'kg' | 'g' | 'lb' | 't';
+export type UnitSystem = 'metric' | 'imperial';
+
+const MM_PER: Record<LengthUnit, number> = { mm: 1, cm: 10, m: 1000, in: MM_PER_INCH, ft: 12 * MM_PER_INCH };
+const KG_PER: Record<MassUnit, number> = { kg: 1, g: 0.001, lb: KG_PER_POUND, t: 1000 };
+
+export function toMm(value: number, unit: LengthUnit): number {
+  return value * MM_PER[unit];
+}
+export function fromMm(valueMm: number, unit: LengthUnit): number {
+  return valueMm / MM_PER[unit];
+}
+export function toKg(value: number, unit: MassUnit): number {
+  return value * KG_PER[unit];
+}
+export function fromKg(valueKg: number, unit: MassUnit): number {
+  return valueKg / KG_PER[unit];
+}
+
+/** Weight force in newtons of a mass in kilograms under standard gravity. */
+export function weightN(massKg: number): number {
+  return massKg * STANDARD_GRAVITY_M_PER_S2;
+}
+
+export interface DisplayQuantity {
+  value: number;
+  unit: string;
+}
+
+/** The display unit for lengths and masses in each unit system. */
+export function displayLength(valueMm: number, system: UnitSystem): DisplayQuantity {
+  return system === 'imperial' ? { value: fromMm(valueMm, 'in'), unit: 'in' } : { value: valueMm, unit: 'mm' };
+}
+export function displayMass(valueKg: number, system: UnitSystem): DisplayQuantity {
+  return system === 'imperial' ? { value: fromKg(valueKg, 'lb'), unit: 'lb' } : { value: valueKg, unit: 'kg' };
+}
+
+/** Formats a length for people, e.g. "1,250 mm" or "49.2 in". */
+export function formatLength(valueMm: number, system: UnitSystem, digits?: number): string {
+  const q = displayLength(valueMm, system);
+  return `${formatNumber(q.value, digits ?? (system === 'imperial' ? 1 : 0))} ${q.unit}`;
+}
+/** Formats a mass for people, e.g. "418.5 kg" or "922.6 lb". */
+export function formatMass(valueKg: number, system: UnitSystem, digits = 1): string {
+  const q = displayMass(valueKg, system);
+  return `${formatNumber(q.value, digits)} ${q.unit}`;
+}
+export function formatNumber(value: number, digits = 0): string {
+  if (!Number.isFinite(value)) return '—';
+  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+}
