@@ -1,0 +1,58 @@
+import type { Knex } from 'knex';
+import { hashPassword } from '../server/security/passwords.ts';
+
+/**
+ * The demo scenario (an invented touring mechanical orrery and eight invented venues). It is
+ * written only into an empty database, so running it again never duplicates anything. Later
+ * features add their demo rows here, in the same transaction.
+ */
+export const DEMO_USERS = [
+  { email: 'admin@ballast.example', name: 'Ines Marlow', password: 'demo-admin-2027', isAdmin: true, role: null },
+  { email: 'planner@ballast.example', name: 'Tobiah Renn', password: 'demo-planner-2027', isAdmin: false, role: 'planner' },
+  { email: 'rigger@ballast.example', name: 'Saskia Oduya', password: 'demo-rigger-2027', isAdmin: false, role: 'rigger' },
+  { email: 'venue@ballast.example', name: 'Dale Whitcombe', password: 'demo-venue-2027', isAdmin: false, role: 'venue' },
+] as const;
+
+export const DEMO_VENUES = [
+  { name: 'Kelderwerf Hall', city: 'Rotterdam', country: 'NL' },
+  { name: 'Sala Ventolina', city: 'Barcelona', country: 'ES' },
+  { name: 'Havsljus Scen', city: 'Gothenburg', country: 'SE' },
+  { name: 'Teatr Bursztynowy', city: 'Gdańsk', country: 'PL' },
+  { name: 'Loomworks Hall', city: 'Manchester', country: 'GB' },
+  { name: 'Forum Aurelian', city: 'Lyon', country: 'FR' },
+  { name: 'Assay House', city: 'Toronto', country: 'CA' },
+  { name: 'Verrière Pavilion', city: 'Montréal', country: 'CA' },
+] as const;
+
+export async function seed(knex: Knex): Promise<void> {
+  await knex.transaction(async (trx) => {
+    // Serialise concurrent seeders (two app servers starting at once) on one advisory lock.
+    await trx.raw('select pg_advisory_xact_lock(727274)');
+    const { count } = (await trx('productions').count<{ count: number }[]>('* as count'))[0];
+    if (Number(count) > 0) return;
+
+    const [tour] = await trx('productions')
+      .insert({ name: 'Orrery Seven — European and Canadian tour', machine_name: 'Orrery Seven', paper_size: 'A4', default_units: 'metric' })
+      .returning('id');
+    const [residency] = await trx('productions')
+      .insert({ name: 'Orrery Seven — workshop rebuild', machine_name: 'Orrery Seven', paper_size: 'Letter', default_units: 'metric' })
+      .returning('id');
+
+    const venues = await trx('venues')
+      .insert(DEMO_VENUES.map((v) => ({ ...v, production_id: tour.id })))
+      .returning(['id', 'name']);
+    const loomworks = venues.find((v) => v.name === 'Loomworks Hall')!;
+
+    for (const u of DEMO_USERS) {
+      const [user] = await trx('users')
+        .insert({ email: u.email, name: u.name, is_admin: u.isAdmin, password_hash: await hashPassword(u.password) })
+        .returning('id');
+      if (u.role) {
+        await trx('memberships').insert({ production_id: tour.id, user_id: user.id, role: u.role, venue_ids: u.role === 'venue' ? [loomworks.id] : [] });
+      }
+      if (u.role === 'planner' || u.role === 'rigger') {
+        await trx('memberships').insert({ production_id: residency.id, user_id: user.id, role: u.role });
+      }
+    }
+  });
+}
