@@ -1,0 +1,10 @@
+export { Alert } from './alert.tsx';
+export { Badge, type Tone } from './badge.tsx';
+export { Button, buttonClasses } from './button.tsx';
+export { Card } from './card.tsx';
+export { CheckboxField, ChoiceGroup, Field, SelectField, TextField, controlClasses } from './field.tsx';
+export { EmptyState } from './empty-state.tsx';
+export { ErrorState } from './error-state.tsx';
+export { PageHeader } from './page-header.tsx';
+export { PageLoading, Spinner } from './spinner.tsx';
+export { Logo } from './logo.tsx';
