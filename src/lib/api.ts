@@ -57,6 +57,14 @@ export function resetCsrfToken(): void {
   csrfToken = null;
 }
 
+/**
+ * Use the token the server handed out with a new session (sign-in, accepting an invitation);
+ * without one, forget the old token so the next change fetches a fresh one.
+ */
+export function adoptCsrfToken(token: unknown): void {
+  csrfToken = typeof token === 'string' && token ? Promise.resolve(token) : null;
+}
+
 function getCsrfToken(): Promise<string> {
   if (!csrfToken) {
     const pending = send<{ csrfToken: string }>('GET', '/auth/csrf').then((body) => {

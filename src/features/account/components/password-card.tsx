@@ -2,7 +2,6 @@ import { useState, type FormEvent } from 'react';
 import { z } from 'zod';
 import { changePasswordBody } from '@domain/contracts/auth.ts';
 import { Alert, Button, Card, TextField } from '../../../components/ui/index.ts';
-import { isApiError } from '../../../lib/api.ts';
 import { apiFieldErrors, formLevelError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useChangePassword } from '../api/change-password.ts';
 
@@ -28,20 +27,13 @@ export function PasswordCard() {
       { currentPassword: checked.data.currentPassword, newPassword: checked.data.newPassword },
       {
         onSuccess: () => setValues(EMPTY),
-        onError: (error) => {
-          const fieldErrors = apiFieldErrors(error);
-          // A wrong current password is about that field, whatever code the server uses for it.
-          if (isApiError(error) && [401, 403].includes(error.status) && error.code !== 'csrf') {
-            fieldErrors.currentPassword = 'That is not your current password.';
-          }
-          setErrors(fieldErrors);
-        },
+        // A wrong current password comes back as a 400 naming `currentPassword`.
+        onError: (error) => setErrors(apiFieldErrors(error)),
       },
     );
   }
 
-  const wrongCurrent = isApiError(change.error) && [401, 403].includes(change.error.status) && change.error.code !== 'csrf';
-  const problem = wrongCurrent ? null : formLevelError(change.error, FIELDS);
+  const problem = formLevelError(change.error, FIELDS);
 
   return (
     <Card title="Password">

@@ -8,6 +8,8 @@ export interface InvitationCreated {
   email: string;
   /** ISO date-time after which the link no longer works. */
   expiresAt: string;
+  /** False when the invitation was saved but its e-mail could not be sent. */
+  delivered?: boolean;
 }
 
 /** `POST /api/admin/invitations` → 201 with the invitation; the e-mail goes out from the server. */

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { membershipBody } from '@domain/contracts/auth.ts';
-import { Alert, Button, SelectField, TextField } from '../../../components/ui/index.ts';
+import { Alert, Button, SelectField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { fieldError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
 import { PRODUCTION_ROLES, ROLE_LABEL, type ProductionRole } from '../../../lib/roles.ts';
@@ -8,7 +8,7 @@ import { useDeleteMember } from '../api/delete-member.ts';
 import type { AdminUser } from '../api/get-users.ts';
 import type { ProductionSummary } from '../api/get-productions.ts';
 import { usePutMember } from '../api/put-member.ts';
-import { parseIdList } from './venue-ids.ts';
+import { VenuePicker } from './venue-picker.tsx';
 
 /** One row per production: the person's role there, or no access. */
 export function AccessEditor({ user, productions }: { user: AdminUser; productions: ProductionSummary[] }) {
@@ -27,7 +27,7 @@ type Choice = ProductionRole | 'none';
 function AccessRow({ user, production }: { user: AdminUser; production: ProductionSummary }) {
   const current = user.memberships.find((m) => m.productionId === production.id);
   const [role, setRole] = useState<Choice>(current?.role ?? 'none');
-  const [venueIds, setVenueIds] = useState((current?.venueIds ?? []).join(', '));
+  const [venueIds, setVenueIds] = useState<string[]>(current?.venueIds ?? []);
   const [errors, setErrors] = useState<FieldErrors>({});
   const put = usePutMember();
   const remove = useDeleteMember();
@@ -36,7 +36,7 @@ function AccessRow({ user, production }: { user: AdminUser; production: Producti
 
   const unchanged =
     (role === 'none' && !current) ||
-    (current && role === current.role && (role !== 'venue' || parseIdList(venueIds).join() === current.venueIds.join()));
+    (current && role === current.role && (role !== 'venue' || sameSet(venueIds, current.venueIds)));
 
   function save() {
     put.reset();
@@ -45,7 +45,7 @@ function AccessRow({ user, production }: { user: AdminUser; production: Producti
       if (current) remove.mutate({ productionId: production.id, userId: user.id });
       return;
     }
-    const checked = validate(membershipBody, { userId: user.id, role, venueIds: role === 'venue' ? parseIdList(venueIds) : [] });
+    const checked = validate(membershipBody, { userId: user.id, role, venueIds: role === 'venue' ? venueIds : [] });
     if (!checked.ok) return setErrors(checked.errors);
     setErrors({});
     put.mutate({ productionId: production.id, userId: user.id, role: checked.data.role, venueIds: checked.data.venueIds });
@@ -73,14 +73,9 @@ function AccessRow({ user, production }: { user: AdminUser; production: Producti
         </Button>
       </div>
       {role === 'venue' && (
-        <TextField
-          className="mt-3"
-          label="Venue ids"
-          value={venueIds}
-          onChange={(e) => setVenueIds(e.target.value)}
-          error={fieldError(errors, 'venueIds')}
-          hint="Separated by commas."
-        />
+        <div className="mt-3">
+          <VenuePicker venues={production.venues ?? []} value={venueIds} onChange={setVenueIds} error={fieldError(errors, 'venueIds')} />
+        </div>
       )}
       {error && (
         <Alert tone="danger" className="mt-3">
@@ -94,4 +89,8 @@ function AccessRow({ user, production }: { user: AdminUser; production: Producti
       )}
     </li>
   );
+}
+
+function sameSet(a: string[], b: string[]): boolean {
+  return a.length === b.length && a.every((id) => b.includes(id));
 }

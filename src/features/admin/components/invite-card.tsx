@@ -6,9 +6,9 @@ import { apiFieldErrors, fieldError, formLevelError, validate, type FieldErrors 
 import { PRODUCTION_ROLES, ROLE_LABEL, ROLE_SUMMARY, type ProductionRole } from '../../../lib/roles.ts';
 import { useCreateInvitation } from '../api/create-invitation.ts';
 import type { ProductionSummary } from '../api/get-productions.ts';
-import { parseIdList } from './venue-ids.ts';
+import { VenuePicker } from './venue-picker.tsx';
 
-const EMPTY = { email: '', name: '', isAdmin: false, productionId: '', role: 'planner' as ProductionRole, venueIds: '' };
+const EMPTY = { email: '', name: '', isAdmin: false, productionId: '', role: 'planner' as ProductionRole, venueIds: [] as string[] };
 const FIELDS = ['email', 'name', 'isAdmin', 'membership.productionId', 'membership.role', 'membership.venueIds'];
 
 /** Invite a person by e-mail, optionally straight onto one production with a role. */
@@ -25,7 +25,7 @@ export function InviteCard({ productions }: { productions: ProductionSummary[] }
       name: values.name,
       isAdmin: values.isAdmin,
       membership: values.productionId
-        ? { productionId: values.productionId, role: values.role, venueIds: values.role === 'venue' ? parseIdList(values.venueIds) : [] }
+        ? { productionId: values.productionId, role: values.role, venueIds: values.role === 'venue' ? values.venueIds : [] }
         : undefined,
     };
     const checked = validate(invitationBody, body);
@@ -42,7 +42,12 @@ export function InviteCard({ productions }: { productions: ProductionSummary[] }
   return (
     <Card title="Invite a person" description="They get an e-mail with a link to choose a password.">
       <form noValidate onSubmit={submit} className="flex flex-col gap-4">
-        {invite.isSuccess && (
+        {invite.isSuccess && invite.data.delivered === false && (
+          <Alert tone="caution" title={`The invitation for ${invite.data.email} is saved, but the e-mail could not be sent`}>
+            Check the mail settings, then invite again or send the person the link another way.
+          </Alert>
+        )}
+        {invite.isSuccess && invite.data.delivered !== false && (
           <Alert tone="ok" title={`Invitation sent to ${invite.data.email}`}>
             The link works until {new Date(invite.data.expiresAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}.
             In development the e-mail lands in{' '}
@@ -65,7 +70,7 @@ export function InviteCard({ productions }: { productions: ProductionSummary[] }
           <SelectField
             label="Production"
             value={values.productionId}
-            onChange={(e) => set('productionId', e.target.value)}
+            onChange={(e) => setValues((v) => ({ ...v, productionId: e.target.value, venueIds: [] }))}
             error={fieldError(errors, 'membership.productionId')}
             hint="Access can be added or changed later."
           >
@@ -93,12 +98,11 @@ export function InviteCard({ productions }: { productions: ProductionSummary[] }
           )}
         </div>
         {values.productionId && values.role === 'venue' && (
-          <TextField
-            label="Venue ids"
+          <VenuePicker
+            venues={productions.find((p) => p.id === values.productionId)?.venues ?? []}
             value={values.venueIds}
-            onChange={(e) => set('venueIds', e.target.value)}
+            onChange={(ids) => set('venueIds', ids)}
             error={fieldError(errors, 'membership.venueIds')}
-            hint="The venues this person works for, separated by commas."
           />
         )}
         <CheckboxField
