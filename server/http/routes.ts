@@ -1,6 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { ZodType } from 'zod';
-import { roleMay, membershipFor, type Action, type Actor } from '../../src/domain/policy/index.ts';
+import { isCompanyAction, roleMay, membershipFor, type Action, type Actor } from '../../src/domain/policy/index.ts';
 import { AppError, forbidden, invalid, zodIssues } from './errors.ts';
 
 /**
@@ -72,7 +72,8 @@ export function mountRoutes(router: Router, base: string, defs: RouteDef[], csrf
       }
     });
     router[def.method](def.path, ...chain);
-    routeTable.push({ method: def.method, path: base + def.path, access: def.access });
+    const path = base + def.path;
+    if (!routeTable.some((r) => r.method === def.method && r.path === path)) routeTable.push({ method: def.method, path, access: def.access });
   }
 }
 
@@ -90,7 +91,7 @@ function authorize(action: Action): RequestHandler {
   return (req, _res, next) => {
     const actor = req.actor!;
     const productionId = req.params.productionId as string | undefined;
-    if (!productionId) {
+    if (isCompanyAction(action) || !productionId) {
       next(roleMay(null, actor.isAdmin, action) ? undefined : forbidden('Only an administrator may do this.'));
       return;
     }

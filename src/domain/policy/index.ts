@@ -93,6 +93,11 @@ const ROLE_ACTIONS: Record<ProductionRole, ReadonlySet<Action>> = {
 /** Actions that need no production: company-wide rights of admins. */
 const ADMIN_ACTIONS: ReadonlySet<Action> = new Set<Action>(['people.manage', 'mail.read']);
 
+/** Company-wide actions are decided by the admin flag alone, whatever production they name. */
+export function isCompanyAction(action: Action): boolean {
+  return ADMIN_ACTIONS.has(action);
+}
+
 /** Actions whose subject is one venue, so a venue user is limited to their own venues. */
 const VENUE_SCOPED: ReadonlySet<Action> = new Set<Action>(['venue.read', 'venue.edit', 'engagement.read', 'engagement.checkin', 'liftplan.read']);
 
