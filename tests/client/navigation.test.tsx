@@ -1,0 +1,104 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import type { SessionUser } from '../../src/lib/session.ts';
+import { NAV_ITEMS, navigationFor, type NavItem } from '../../src/app/navigation.ts';
+import { fakeApi, sessionRoutes } from './helpers/fake-api.ts';
+import { admin, adminWithoutProductions, newcomer, ORRERY, planner, production, rigger, venueUser } from './helpers/fixtures.ts';
+import { renderApp } from './helpers/render-app.tsx';
+
+function productionRoutes(user: SessionUser) {
+  return {
+    ...sessionRoutes(user),
+    [`GET /api/productions/${ORRERY}`]: { body: { production: production() } },
+    [`GET /api/productions/${ORRERY}/members`]: { body: { members: [] } },
+  };
+}
+
+async function navLinks(): Promise<string[]> {
+  const nav = await screen.findByRole('navigation', { name: 'Main' });
+  return within(nav)
+    .getAllByRole('link')
+    .map((a) => a.textContent ?? '');
+}
+
+describe('navigation fits the role in the current production', () => {
+  const cases: Array<[string, SessionUser, string[]]> = [
+    ['planner sees Overview and Settings', planner, ['Overview', 'Settings']],
+    ['rigger sees Overview only', rigger, ['Overview']],
+    ['venue sees Overview only', venueUser, ['Overview']],
+    ['admin who is a rigger here sees Overview, People and Mail', admin, ['Overview', 'People', 'Mail']],
+  ];
+
+  it.each(cases)('%s', async (_name, user, expected) => {
+    fakeApi(productionRoutes(user));
+    renderApp(`/p/${ORRERY}`);
+    await screen.findByRole('heading', { name: 'Orrery Seven tour', level: 1 });
+    expect(await navLinks()).toEqual(expected);
+  });
+
+  it('hides the settings button on the overview from roles that may not edit', async () => {
+    fakeApi(productionRoutes(rigger));
+    renderApp(`/p/${ORRERY}`);
+    await screen.findByRole('heading', { name: 'Orrery Seven tour', level: 1 });
+    expect(screen.queryByRole('link', { name: 'Edit settings' })).toBeNull();
+  });
+
+  it('refuses the settings screen to a rigger who follows a link there', async () => {
+    const api = fakeApi(productionRoutes(rigger));
+    renderApp(`/p/${ORRERY}/settings`);
+    expect(await screen.findByText('This screen is not part of your role')).toBeTruthy();
+    expect(api.callsTo(`PATCH /api/productions/${ORRERY}`)).toHaveLength(0);
+  });
+
+  it('an admin with no productions sees company entries and a friendly empty state', async () => {
+    fakeApi(sessionRoutes(adminWithoutProductions));
+    renderApp('/');
+    expect(await screen.findByText('You are not on any production yet')).toBeTruthy();
+    expect(await navLinks()).toEqual(['People', 'Mail']);
+    expect(screen.queryByRole('combobox', { name: 'Production' })).toBeNull();
+  });
+
+  it('a person with no productions and no admin rights sees only the empty state', async () => {
+    fakeApi(sessionRoutes(newcomer));
+    renderApp('/');
+    expect(await screen.findByText('You are not on any production yet')).toBeTruthy();
+    expect(screen.getByText(/An administrator adds you to a production/)).toBeTruthy();
+    expect(within(screen.getByRole('navigation', { name: 'Main' })).queryAllByRole('link')).toHaveLength(0);
+  });
+
+  it('says so when the URL names a production the person is not on', async () => {
+    fakeApi(sessionRoutes(rigger));
+    renderApp('/p/9d8c7b6a-5f4e-4d3c-8b2a-1f0e9d8c7b6a');
+    expect(await screen.findByText('You are not on this production')).toBeTruthy();
+  });
+
+  it('shows the 404 page inside the shell for unknown addresses', async () => {
+    fakeApi(sessionRoutes(planner));
+    renderApp('/no/such/page');
+    expect(await screen.findByText('This page does not exist')).toBeTruthy();
+    expect(screen.getByRole('navigation', { name: 'Main' })).toBeTruthy();
+  });
+});
+
+describe('the navigation list is one table filtered by the policy', () => {
+  // What a later issue does: add one entry; the policy decides who sees it.
+  const extended: NavItem[] = [...NAV_ITEMS, { label: 'Machine', path: 'machine', action: 'machine.read', scope: 'production' }];
+  const labels = (role: 'planner' | 'rigger' | 'venue', isAdmin = false) =>
+    navigationFor({ productionId: ORRERY, role, isAdmin }, extended).production.map((l) => l.label);
+
+  it('shows a new entry to the roles the policy lets read it', () => {
+    expect(labels('planner')).toContain('Machine');
+    expect(labels('rigger')).toContain('Machine');
+    expect(labels('venue')).not.toContain('Machine');
+  });
+
+  it('builds production links under /p/:productionId and company links as given', () => {
+    const nav = navigationFor({ productionId: ORRERY, role: 'planner', isAdmin: true });
+    expect(nav.production.map((l) => l.to)).toEqual([`/p/${ORRERY}`, `/p/${ORRERY}/settings`]);
+    expect(nav.company.map((l) => l.to)).toEqual(['/admin/people', '/admin/mail']);
+  });
+
+  it('shows no production entries outside a production', () => {
+    expect(navigationFor({ productionId: null, role: null, isAdmin: false }).production).toEqual([]);
+  });
+});
