@@ -47,7 +47,9 @@ const step = (what, args) => {
     process.exit(r.status ?? 1);
   }
 };
-step('Migrating and seeding the demo data (only into an empty database)…', ['--import', 'tsx', 'scripts/migrate-and-seed.ts', '--seed']);
+// BALLAST_DEMO=false keeps the demo scenario out of a real installation's empty database.
+const seedDemo = process.env.BALLAST_DEMO !== 'false';
+step(seedDemo ? 'Migrating and seeding the demo data (only into an empty database)…' : 'Migrating…', ['--import', 'tsx', 'scripts/migrate-and-seed.ts', ...(seedDemo ? ['--seed'] : [])]);
 
 const children = [];
 if (dev) {

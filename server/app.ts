@@ -78,6 +78,11 @@ export function createApp(base: BaseDeps): express.Express {
         return id;
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // Log what helps to trace a request, never cookies, tokens or bodies.
+      serializers: {
+        req: (req: { id: string; method: string; url: string; remoteAddress?: string }) => ({ id: req.id, method: req.method, url: req.url, remoteAddress: req.remoteAddress }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
     }),
   );
   app.use(
