@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { SessionUser } from '../../src/lib/session.ts';
 import { NAV_ITEMS, navigationFor, type NavItem } from '../../src/app/navigation.ts';
 import { fakeApi, sessionRoutes } from './helpers/fake-api.ts';
-import { admin, adminWithoutProductions, newcomer, ORRERY, planner, production, rigger, venueUser } from './helpers/fixtures.ts';
+import { admin, adminWithoutProductions, newcomer, ORRERY, planner, production, rigger, SPARE, venueUser } from './helpers/fixtures.ts';
 import { renderApp } from './helpers/render-app.tsx';
 
 function productionRoutes(user: SessionUser) {
@@ -64,6 +64,17 @@ describe('navigation fits the role in the current production', () => {
     expect(await screen.findByText('You are not on any production yet')).toBeTruthy();
     expect(screen.getByText(/An administrator adds you to a production/)).toBeTruthy();
     expect(within(screen.getByRole('navigation', { name: 'Main' })).queryAllByRole('link')).toHaveLength(0);
+  });
+
+  it('keeps the last production’s entries at hand on screens outside a production', async () => {
+    fakeApi(sessionRoutes(planner));
+    window.localStorage.setItem('ballast.lastProduction', JSON.stringify({ [planner.id]: SPARE }));
+    renderApp('/account');
+    await screen.findByRole('heading', { name: 'Your account', level: 1 });
+    // On the spare production the planner is a rigger: no Settings there.
+    const nav = screen.getByRole('navigation', { name: 'Main' });
+    expect(within(nav).getAllByRole('link').map((a) => [a.textContent, a.getAttribute('href')])).toEqual([['Overview', `/p/${SPARE}`]]);
+    expect((screen.getByRole('combobox', { name: 'Production' }) as HTMLSelectElement).value).toBe(SPARE);
   });
 
   it('says so when the URL names a production the person is not on', async () => {

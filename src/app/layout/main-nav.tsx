@@ -2,14 +2,14 @@ import type { ReactNode } from 'react';
 import { NavLink } from 'react-router-dom';
 import { Badge } from '../../components/ui/index.ts';
 import { cx } from '../../lib/cx.ts';
-import { useCurrentProduction } from '../../lib/current-production.ts';
 import { ROLE_LABEL } from '../../lib/roles.ts';
 import type { SessionUser } from '../../lib/session.ts';
 import { navigationFor, type NavLinkTarget } from '../navigation.ts';
+import { useNavProduction } from './use-nav-production.ts';
 
 /** The navigation that fits the person's role in the current production, and their company rights. */
 export function MainNav({ user }: { user: SessionUser }) {
-  const { productionId, role } = useCurrentProduction();
+  const { productionId, role } = useNavProduction();
   const { production, company } = navigationFor({ productionId, role, isAdmin: user.isAdmin });
   return (
     <nav aria-label="Main" className="flex flex-col gap-5 px-3 py-4">
@@ -17,7 +17,7 @@ export function MainNav({ user }: { user: SessionUser }) {
         <Group
           title={
             <span className="flex items-center justify-between gap-2">
-              This production <Badge tone="accent">{ROLE_LABEL[role]}</Badge>
+              This production <Badge tone="accent" className="tracking-normal normal-case">{ROLE_LABEL[role]}</Badge>
             </span>
           }
           links={production}

@@ -1,12 +1,12 @@
 import { useLocation, useNavigate } from 'react-router-dom';
 import { controlClasses } from '../../components/ui/index.ts';
-import { useCurrentProduction } from '../../lib/current-production.ts';
 import type { SessionUser } from '../../lib/session.ts';
 import { switchTarget } from '../navigation.ts';
+import { useNavProduction } from './use-nav-production.ts';
 
 /** Lists the productions the person belongs to; choosing one opens it at the same screen. */
 export function ProductionSwitcher({ user }: { user: SessionUser }) {
-  const { productionId, membership } = useCurrentProduction();
+  const { productionId, membership } = useNavProduction();
   const location = useLocation();
   const navigate = useNavigate();
   if (user.memberships.length === 0) return null;

@@ -12,6 +12,8 @@ export interface PageHeaderProps {
 export function PageHeader({ title, eyebrow, description, actions }: PageHeaderProps) {
   return (
     <header className="mb-6 flex flex-wrap items-end justify-between gap-4">
+      {/* React hoists <title> into <head>: each screen names the browser tab. */}
+      {typeof title === 'string' && <title>{`${title} · Ballast`}</title>}
       <div className="min-w-0">
         {eyebrow && <p className="text-sm font-semibold tracking-wide text-tide-700 uppercase">{eyebrow}</p>}
         <h1 className="text-2xl font-bold text-ink-950 sm:text-3xl">{title}</h1>

@@ -5,6 +5,7 @@ import { Logo } from '../../../components/ui/index.ts';
 export function AuthFrame({ title, intro, children, footer }: { title: ReactNode; intro?: ReactNode; children: ReactNode; footer?: ReactNode }) {
   return (
     <div className="flex min-h-dvh flex-col items-center bg-paper px-4 py-10 sm:justify-center">
+      {typeof title === 'string' && <title>{`${title} · Ballast`}</title>}
       <div className="w-full max-w-md">
         <div className="mb-6 flex flex-col items-center gap-2 text-center">
           <Logo className="text-ink-950" />
