@@ -126,4 +126,15 @@ describe('sign-in', () => {
     await screen.findByRole('heading', { name: 'Sign in' });
     await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
   });
+
+  it('goes back to sign-in when the session ends while a screen loads (any 401)', async () => {
+    fakeApi({
+      ...sessionRoutes(planner),
+      [`GET /api/productions/${ORRERY}`]: { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in to continue.' } } },
+    });
+    const { router } = renderApp(`/p/${ORRERY}`);
+    await screen.findByRole('heading', { name: 'Sign in' });
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe(`?next=${encodeURIComponent(`/p/${ORRERY}`)}`);
+  });
 });
