@@ -112,6 +112,11 @@ export const pickPoint = z.object({
   /** Axis of the lifting point (its strong direction), default +z. */
   axis: vec3Mm.optional(),
   slingGearId: z.string().min(1).optional(),
+  /**
+   * Effective leg length from the pick point to the hook, mm (one hook only). Default: the sling's
+   * length for a vertical hitch, half of it for a basket; a choker needs it typed (the wrap shortens it).
+   */
+  legLengthMm: z.number().positive().finite().optional(),
   hitch: hitch.default('vertical'),
   chokeAngleDeg: z.number().min(0).max(180).optional(),
   shackleGearIds: z.array(z.string().min(1)).default([]),

@@ -212,7 +212,8 @@ export function hangingEquilibrium(input: HangingInput): HangingOutcome {
     result: {
       hookInLoadMm: h,
       upInLoad: w,
-      tiltDeg: Math.acos(Math.max(-1, Math.min(1, w[2]))) * DEG,
+      // atan2 keeps precision near 0° where acos would not.
+      tiltDeg: Math.atan2(Math.hypot(w[0], w[1]), w[2]) * DEG,
       rotation: { axis: rot.axis, angleDeg: rot.angle * DEG },
       taut,
       tensionsKg,

@@ -19,3 +19,40 @@ export { teamCapacityKg, MAX_TEAM_WITH_PUBLISHED_FACTOR } from './team.ts';
 export { handlingVerdict } from './handling-verdict.ts';
 export type { HandlingItem, HandlingVerdict, HandlingVerdictKind, HandlingMethod } from './handling-verdict.ts';
 export { LIFTING_CAUTIONS, HANDLING_CAUTIONS, handlingCautions, liftPlanCautions } from './cautions.ts';
+
+// Rigging.
+export {
+  bridleLegTensionKg,
+  slingAngleFactor,
+  slingAngleFromGeometryDeg,
+  slingAngleProblem,
+  slingRatingAtAngleKg,
+  MIN_SLING_ANGLE_FROM_HORIZONTAL_DEG,
+} from './sling-angle.ts';
+export { hitchFactor, CHOKER_FACTORS, MIN_CHOKE_ANGLE_DEG } from './hitch.ts';
+export type { Hitch, SlingType, HitchFactorResult } from './hitch.ts';
+export { en13414LegFactor, EN13414_LABEL } from './leg-factors.ts';
+export { HOIST_RULE_SETS, DEFAULT_HOIST_RULE_SET, hoistRatingForUse } from './hoist-classes.ts';
+export type { HoistClass, HoistClassRule, HoistRuleSet, HoistUseAsRule, HoistUseResult } from './hoist-classes.ts';
+export { gearUsableOn, gearLabel, liftingPointRatingKg } from './gear.ts';
+export { DEFAULT_DYNAMIC_FACTOR, en13001Phi2, dynamicFactorProblem } from './dynamic-factor.ts';
+export type { DynamicFactor } from './dynamic-factor.ts';
+
+// Statics and lift plans.
+export { pickPointLoadsKg, verticalPickLoadsKg, PLUMB_TOLERANCE_MM } from './pick-point-loads.ts';
+export { hangingEquilibrium } from './hanging-equilibrium.ts';
+export type { HangingInput, HangingResult, HangingOutcome } from './hanging-equilibrium.ts';
+export { exclusionZone, rectsOverlap } from './exclusion-zone.ts';
+export type { ExclusionZone, PlanRect } from './exclusion-zone.ts';
+export { evaluateLiftPlan, TURN_OVER_TILT_DEG } from './lift-plan.ts';
+export type {
+  LiftPlanResult,
+  LiftFinding,
+  LiftFindingCode,
+  LiftFindingSeverity,
+  ComponentUse,
+  LegResult,
+  CogCaseResult,
+  LiftLoads,
+} from './lift-plan.ts';
+export type { LiftPlanInput, LiftPlan, GearItem, HoistItem, SlingItem, ShackleItem, LiftingPointItem, SpreaderBeamItem } from '../contracts/lifting.ts';
