@@ -1,6 +1,5 @@
 import { existsSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
-import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { pino } from 'pino';
 import type { TestProject } from 'vitest/node';
@@ -38,13 +37,16 @@ export default async function setup(project: TestProject): Promise<() => Promise
     const r = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
     if (r.status !== 0) throw new Error('vite build failed');
   }
-  const config = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', PORT: '0', CLIENT_DIST: 'dist/client' });
+  // A free port first, so that links in e-mails (APP_URL) name the address the browser uses.
+  // @ts-expect-error plain JS module without types
+  const { freePort } = await import('../../scripts/lib/postgres.mjs');
+  const port: number = await freePort();
+  const config = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', PORT: String(port), CLIENT_DIST: 'dist/client' });
   const deps = await openDeps(config, pino({ level: 'silent' }));
   const app = createApp(deps);
   const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+    const s = app.listen(port, '127.0.0.1', () => resolve(s));
   });
-  const { port } = server.address() as AddressInfo;
   project.provide('baseUrl', `http://127.0.0.1:${port}`);
   return async () => {
     await new Promise<void>((resolve) => server.close(() => resolve()));
