@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/security/passwords.ts';
+import { seedDemoMachine } from '../server/modules/machine/demo-machine.ts';
 
 /**
  * The demo scenario (an invented touring mechanical orrery and eight invented venues). It is
@@ -54,5 +55,8 @@ export async function seed(knex: Knex): Promise<void> {
         await trx('memberships').insert({ production_id: residency.id, user_id: user.id, role: u.role });
       }
     }
+
+    // The tour's machine breakdown (the workshop rebuild starts empty, to show the empty screens).
+    await seedDemoMachine(trx, tour.id, 'Orrery Seven');
   });
 }

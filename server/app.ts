@@ -21,6 +21,7 @@ import { healthRoutes } from './modules/health/health.routes.ts';
 import { productionRoutes } from './modules/productions/productions.routes.ts';
 import { adminRoutes } from './modules/admin/admin.routes.ts';
 import { invitationRoutes } from './modules/invitations/invitations.routes.ts';
+import { machineRoutes } from './modules/machine/machine.routes.ts';
 
 export interface AppDeps {
   config: Config;
@@ -45,6 +46,7 @@ function modules(deps: AppDeps): [string, RouteDef[]][] {
     ['/api/invitations', invitationRoutes(deps)],
     ['/api/productions', productionRoutes(deps)],
     ['/api/admin', adminRoutes(deps)],
+    ['/api/productions/:productionId/machine', machineRoutes(deps)],
   ];
 }
 
