@@ -26,8 +26,8 @@ export function convexHull(points: Xy[]): Xy[] {
 /**
  * Signed distance, mm, by which a plan point lies inside the support of the pick points: positive
  * inside, negative outside (how far outside). Two points: inside means its projection falls between
- * them (the load turns about the line between them until the CoG hangs below it). One point: −∞
- * unless directly under it... callers treat a single point separately.
+ * them (the load turns about the line between them until the CoG hangs below it). One point: minus
+ * the plan distance to it (a single point never surrounds anything; callers treat it separately).
  */
 export function marginInside(point: Xy, supports: Xy[]): number {
   if (supports.length === 0) return -Infinity;

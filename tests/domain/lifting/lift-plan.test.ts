@@ -7,6 +7,22 @@ import type { GearItem, LiftPlanInput } from '../../../src/domain/contracts/lift
 // GL Noble Denton 0027/ND Table 5-1) [PUB-2]; expected figures are computed here by hand from those
 // formulas [COMP] unless the comment says otherwise.
 
+// Independent three-leg statics by Cramer's rule: Σ Tᵢ uᵢ = W·up, null if a leg would push.
+function solveTriple(p: [number, number, number][], hook: number[], up: number[], W: number): number[] | null {
+  const u = p.map((q) => {
+    const d = [hook[0] - q[0], hook[1] - q[1], hook[2] - q[2]];
+    const l = Math.hypot(d[0], d[1], d[2]);
+    return d.map((x) => x / l);
+  });
+  const m = [0, 1, 2].map((r) => [u[0][r], u[1][r], u[2][r]]);
+  const det = (a: number[][]) => a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0]) + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
+  const D = det(m);
+  if (Math.abs(D) < 1e-12) return null;
+  const b = up.map((x) => x * W);
+  const t = [0, 1, 2].map((k) => det(m.map((row, i) => row.map((v, j) => (j === k ? b[i] : v)))) / D);
+  return t.every((x) => x >= 0) ? t : null;
+}
+
 const gear: GearItem[] = [
   { id: 'h1', identifier: 'CH-1', kind: 'hoist', ratedLoadKg: 1000, selfWeightKg: 40, chainWeightKg: 15, hoistClass: 'D8+', nextInspectionDate: '2027-01-01' },
   { id: 'h2', identifier: 'CH-2', kind: 'hoist', ratedLoadKg: 1000, selfWeightKg: 40, chainWeightKg: 15, hoistClass: 'D8+', nextInspectionDate: '2027-01-01' },
@@ -178,6 +194,23 @@ describe('evaluateLiftPlan: tilt with unequal slings', () => {
   });
 });
 
+describe('evaluateLiftPlan: load picked from below its CoG', () => {
+  it('two slings to points below the CoG: the load turns over about the pick line, refused', () => {
+    const r = evaluateLiftPlan(
+      basePlan({
+        load: { massKg: 400, massWeighed: true, cogMm: [0, 0, 500], boundsMm: { minMm: [-700, -400, 0], maxMm: [700, 400, 1000] } },
+        pickPoints: [
+          { id: 'A', positionMm: [-600, 0, 0], slingGearId: 's1' },
+          { id: 'B', positionMm: [600, 0, 0], slingGearId: 's2' },
+        ],
+      }),
+    );
+    expect(r.verdict).toBe('no verdict');
+    expect(r.findings.map((f) => f.code)).toContain('load-turns-over');
+    expect(r.tiltDeg!).toBeGreaterThan(90);
+  });
+});
+
 describe('evaluateLiftPlan: vertical legs', () => {
   const hoists = (over: Partial<LiftPlanInput> = {}) =>
     basePlan({
@@ -255,6 +288,26 @@ describe('evaluateLiftPlan: four legs on one hook', () => {
     const theta = Math.asin(Math.sqrt(1200 ** 2 - 2 * 500 ** 2) / 1200);
     r.legs.forEach((l) => expect(l.worstTensionKg).toBeCloseTo(400 / (2 * Math.sin(theta)), 6));
     expect(r.findings.map((f) => f.code)).toContain('four-plus-legs-two-carry');
+  });
+
+  it('off-centre CoG: each leg is rated at least at its share in any three-leg subset (independent statics)', () => {
+    const plan = { ...four('two-carry'), load: { massKg: 400, massWeighed: true, cogMm: [-200, -150, 300] as [number, number, number] } };
+    const r = evaluateLiftPlan(plan);
+    const hook = r.hanging!.hookInLoadMm;
+    const up = r.hanging!.upInLoad;
+    const pts = plan.pickPoints.map((p) => p.positionMm as [number, number, number]);
+    // Statics in the load's frame at the hanging pose: the weight acts along −up.
+    let feasible = 0;
+    for (const tri of [[0, 1, 3], [0, 1, 2], [0, 2, 3], [1, 2, 3]]) {
+      const t = solveTriple(tri.map((i) => pts[i]), hook, up, 400);
+      if (!t) continue;
+      feasible++;
+      tri.forEach((legIdx, q) => expect(r.legs[legIdx].worstTensionKg).toBeGreaterThanOrEqual(t[q] - 1e-6));
+    }
+    expect(feasible).toBeGreaterThan(0);
+    // Leg A, nearest the CoG, carries more than W / (2 sin θ) in some subset: the subset figure governs.
+    const theta = (r.legs[0].angleFromHorizontalDeg * Math.PI) / 180;
+    expect(r.legs[0].worstTensionKg).toBeGreaterThan(400 / (2 * Math.sin(theta)));
   });
 
   it('EN 13414-1 as an explicit choice: W / 2.1 for β ≤ 45° (here 53.9° from horizontal → β 36.1°) [PUB-2]', () => {
