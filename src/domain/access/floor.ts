@@ -2,7 +2,8 @@
  * Floor checks.
  *
  * Average pressure: gross × g over the crate's upright footprint (length × width), in kN/m², against
- * the venue's floor rating (REFERENCES §4.5 "pressure check" [CP]). A stage rated 5.0 kN/m² is the
+ * the venue's floor rating (REFERENCES §4.5 "pressure check" [CP]). g is standard gravity,
+ * 9.80665 m/s² (units.ts); the issue's 9.81 differs by 0.03 %. A stage rated 5.0 kN/m² is the
  * EN 1991-1-1 category C4 recommended value [MEM]. On a fail the reason gives the spreader area that
  * would bring the pressure to the rating. The handling equipment's own wheel loads are not included.
  *
