@@ -1,3 +1,4 @@
+import { forEachItem } from './blocks.ts';
 import { prepareInput } from './prepare.ts';
 import { BeamSearch, placedInOrder } from './search.ts';
 import { Solver, type State } from './solver.ts';
@@ -37,13 +38,9 @@ export async function runSearch(solver: Solver, options: PackOptions | undefined
 export function statePlacements(solver: Solver, s: State): Placement[] {
   const B = solver.blocks;
   const out: Placement[] = [];
+  const types = solver.cfg.types;
   for (const p of placedInOrder(s)) {
-    const b = p.b;
-    const id = solver.cfg.types[B.type[b]].id;
-    for (let iz = 0; iz < B.nz[b]; iz++)
-      for (let ix = 0; ix < B.nx[b]; ix++)
-        for (let iy = 0; iy < B.ny[b]; iy++)
-          out.push({ id, xMm: p.x0 + ix * B.ox[b], yMm: p.y0 + iy * B.oy[b], zMm: p.z0 + iz * B.oz[b], lengthMm: B.ox[b], widthMm: B.oy[b], heightMm: B.oz[b] });
+    forEachItem(B, p.b, p.x0, p.y0, p.z0, (t, x, y, z, lx, ly, lz) => out.push({ id: types[t].id, xMm: x, yMm: y, zMm: z, lengthMm: lx, widthMm: ly, heightMm: lz }));
   }
   return out;
 }

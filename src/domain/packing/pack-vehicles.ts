@@ -29,7 +29,7 @@ export async function packVehicles(vehicles: PackVehicle[], items: PackItem[], o
     const prepL = prepareInput(largest, items);
     for (const r of prepL.rejected) {
       const idx = items.findIndex((it) => it.id === r.id);
-      if (!okSomewhere.has(idx)) unplaced.push({ ...r, reason: vehicles.length > 1 ? `fits none of the ${vehicles.length} vehicles; largest "${largest.id}": ${r.reason}` : r.reason });
+      if (!okSomewhere.has(idx)) unplaced.push({ ...r, reason: vehicles.length > 1 ? `item "${r.id}" fits none of the ${vehicles.length} vehicles (largest "${largest.id}": ${r.reason})` : r.reason });
     }
   } else {
     items.forEach((it, i) => it.quantity > 0 && okSomewhere.add(i));

@@ -1,4 +1,4 @@
-import { buildBlocks, type BlockTable } from './blocks.ts';
+import { buildBlocks, forEachItem, type BlockTable } from './blocks.ts';
 import { EPS_MM } from './orientations.ts';
 import type { SolverType } from './prepare.ts';
 import { loadsOnTopKg, type MassBox } from './stack-load.ts';
@@ -23,6 +23,12 @@ import { loadsOnTopKg, type MassBox } from './stack-load.ts';
  *   behind or under one that leaves later.
  */
 
+/**
+ * Mixed (general) blocks are built when lines hold fewer items than this on average (without / with
+ * full support). With full support, mixed blocks have flat tops and so help up to larger lines.
+ */
+export const GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE = { unsupported: 5, fullSupport: 8 };
+
 export interface SolverConfig {
   L: number;
   W: number;
@@ -31,6 +37,8 @@ export interface SolverConfig {
   types: SolverType[];
   groups: number;
   fullSupport: boolean;
+  /** Build general (mixed) blocks; default: when lines are small (see GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE). */
+  generalBlocks?: boolean;
 }
 
 /** A placed block (immutable; the list is shared between search states). */
@@ -100,7 +108,11 @@ export class Solver {
   constructor(cfg: SolverConfig) {
     this.cfg = cfg;
     this.nTypes = cfg.types.length;
-    this.blocks = buildBlocks(cfg.types, cfg.L, cfg.W, cfg.H, cfg.payloadKg);
+    // Mixed blocks pay off when lines are small (few items each: simple blocks are then tiny); with large
+    // lines, their up-to-2 % gaps cost more than they give (measured on BR samples at equal iterations).
+    const itemsPerLine = cfg.types.reduce((n, t) => n + t.count, 0) / Math.max(1, cfg.types.length);
+    const general = cfg.generalBlocks ?? itemsPerLine < GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE[cfg.fullSupport ? 'fullSupport' : 'unsupported'];
+    this.blocks = buildBlocks(cfg.types, cfg.L, cfg.W, cfg.H, cfg.payloadKg, { fullSupport: cfg.fullSupport, general });
     this.hasLimits = cfg.types.some((t) => Number.isFinite(t.maxLoadOnTopKg));
     this.typeGroup = Int32Array.from(cfg.types.map((t) => t.group));
   }
@@ -178,26 +190,47 @@ export class Solver {
     const sy0 = sp[o + 1];
     const sx1 = sp[o + 3];
     const sy1 = sp[o + 4];
-    let k = 0;
+    this.nRects = 0;
     for (let p = s.placed; p; p = p.prev) {
       if (Math.abs(p.z1 - z) > EPS_MM) continue;
-      const x0 = Math.max(p.x0, sx0);
-      const x1 = Math.min(p.x1, sx1);
-      const y0 = Math.max(p.y0, sy0);
-      const y1 = Math.min(p.y1, sy1);
-      if (x1 - x0 <= EPS_MM || y1 - y0 <= EPS_MM) continue;
-      if (k * 4 + 4 > this.rects.length) {
-        const r = new Float64Array(this.rects.length * 2);
-        r.set(this.rects);
-        this.rects = r;
-      }
-      this.rects[k * 4] = x0;
-      this.rects[k * 4 + 1] = y0;
-      this.rects[k * 4 + 2] = x1;
-      this.rects[k * 4 + 3] = y1;
-      k++;
+      if (p.x1 <= sx0 + EPS_MM || p.x0 >= sx1 - EPS_MM || p.y1 <= sy0 + EPS_MM || p.y0 >= sy1 - EPS_MM) continue;
+      const tops = this.blocks.tops[p.b];
+      if (!tops) this.addRect(p.x0, p.y0, p.x1, p.y1, sx0, sy0, sx1, sy1);
+      else for (let j = 0; j < tops.length; j += 4) this.addRect(p.x0 + tops[j], p.y0 + tops[j + 1], p.x0 + tops[j + 2], p.y0 + tops[j + 3], sx0, sy0, sx1, sy1);
     }
-    this.nRects = k;
+  }
+
+  private addRect(ax0: number, ay0: number, ax1: number, ay1: number, sx0: number, sy0: number, sx1: number, sy1: number): void {
+    const x0 = Math.max(ax0, sx0);
+    const x1 = Math.min(ax1, sx1);
+    const y0 = Math.max(ay0, sy0);
+    const y1 = Math.min(ay1, sy1);
+    if (x1 - x0 <= EPS_MM || y1 - y0 <= EPS_MM) return;
+    const k = this.nRects;
+    if (k * 4 + 4 > this.rects.length) {
+      const r = new Float64Array(this.rects.length * 2);
+      r.set(this.rects);
+      this.rects = r;
+    }
+    this.rects[k * 4] = x0;
+    this.rects[k * 4 + 1] = y0;
+    this.rects[k * 4 + 2] = x1;
+    this.rects[k * 4 + 3] = y1;
+    this.nRects = k + 1;
+  }
+
+  /** True when block b with its corner at (x, y) stands fully on the collected tops. */
+  private supported(b: number, x: number, y: number): boolean {
+    const B = this.blocks;
+    if (this.supportedArea(x, y, B.dx[b], B.dy[b]) >= B.dx[b] * B.dy[b] * (1 - 1e-9)) return true;
+    const bot = B.bottoms[b];
+    if (!bot) return false;
+    for (let j = 0; j < bot.length; j += 4) {
+      const w = bot[j + 2] - bot[j];
+      const h = bot[j + 3] - bot[j + 1];
+      if (this.supportedArea(x + bot[j], y + bot[j + 1], w, h) < w * h * (1 - 1e-9)) return false;
+    }
+    return true;
   }
 
   private supportedArea(x: number, y: number, dx: number, dy: number): number {
@@ -251,14 +284,20 @@ export class Solver {
       const dz = B.dz[b];
       if (dz > sz + EPS_MM) continue;
       const t = B.type[b];
-      if (s.rem[t] < B.n[b]) continue;
-      if (multiGroup && this.typeGroup[t] !== s.group) continue;
+      if (t >= 0) {
+        if (s.rem[t] < B.n[b]) continue;
+      } else {
+        const req = B.req[b]!;
+        let ok = true;
+        for (let j = 0; j < req.length && ok; j += 2) ok = s.rem[req[j]] >= req[j + 1];
+        if (!ok) continue;
+      }
+      if (multiGroup && B.group[b] !== s.group) continue;
       if (B.massKg[b] > payloadLeft) continue;
       let x = sx0;
       let y = fromRight ? sy0 + sy - dy : sy0;
       if (needSupport) {
-        const need = dx * dy * (1 - 1e-9);
-        if (this.supportedArea(x, y, dx, dy) < need) {
+        if (!this.supported(b, x, y)) {
           let ok = false;
           for (let r = 0; r < this.nRects && !ok; r++) {
             const rx = this.rects[r * 4];
@@ -266,7 +305,7 @@ export class Solver {
             if (rx + dx > sx0 + sx + EPS_MM) continue;
             if (ry < sy0) ry = sy0;
             if (ry + dy > sy0 + sy + EPS_MM) ry = sy0 + sy - dy;
-            if (this.supportedArea(rx, ry, dx, dy) >= need) {
+            if (this.supported(b, rx, ry)) {
               x = rx;
               y = ry;
               ok = true;
@@ -307,19 +346,12 @@ export class Solver {
   private loadsOk(s: State, b: number, x: number, y: number, z: number): boolean {
     const boxes: MassBox[] = [];
     const limits: number[] = [];
-    const push = (bb: number, px: number, py: number, pz: number) => {
-      const B = this.blocks;
-      const ty = this.cfg.types[B.type[bb]];
-      for (let iz = 0; iz < B.nz[bb]; iz++)
-        for (let iy = 0; iy < B.ny[bb]; iy++)
-          for (let ix = 0; ix < B.nx[bb]; ix++) {
-            const x0 = px + ix * B.ox[bb];
-            const y0 = py + iy * B.oy[bb];
-            const z0 = pz + iz * B.oz[bb];
-            boxes.push({ x0, y0, z0, x1: x0 + B.ox[bb], y1: y0 + B.oy[bb], z1: z0 + B.oz[bb], massKg: ty.massKg });
-            limits.push(ty.maxLoadOnTopKg);
-          }
+    const types = this.cfg.types;
+    const visit = (t: number, x0: number, y0: number, z0: number, lx: number, ly: number, lz: number) => {
+      boxes.push({ x0, y0, z0, x1: x0 + lx, y1: y0 + ly, z1: z0 + lz, massKg: types[t].massKg });
+      limits.push(types[t].maxLoadOnTopKg);
     };
+    const push = (bb: number, px: number, py: number, pz: number) => forEachItem(this.blocks, bb, px, py, pz, visit);
     for (let p = s.placed; p; p = p.prev) push(p.b, p.x0, p.y0, p.z0);
     push(b, x, y, z);
     const loads = loadsOnTopKg(boxes);
@@ -337,11 +369,15 @@ export class Solver {
     const y1 = c.y + B.dy[b];
     const z1 = c.z + B.dz[b];
     s.placed = { b, x0: c.x, y0: c.y, z0: c.z, x1, y1, z1, group: s.group, prev: s.placed };
-    s.rem[t] -= B.n[b];
+    if (t >= 0) s.rem[t] -= B.n[b];
+    else {
+      const req = B.req[b]!;
+      for (let j = 0; j < req.length; j += 2) s.rem[req[j]] -= req[j + 1];
+    }
     s.volume += B.volume[b];
     s.massKg += B.massKg[b];
     // A non-stackable block closes the whole column above it.
-    const top = this.cfg.types[t].stackable ? z1 : this.cfg.H;
+    const top = t < 0 || this.cfg.types[t].stackable ? z1 : this.cfg.H;
     this.subtract(s, c.x, c.y, c.z, x1, y1, top);
   }
 
