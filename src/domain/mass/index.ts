@@ -5,6 +5,8 @@ export { findMeshClosureProblems, type MeshClosureReport, type MeshClosureProble
 export { parseStl, type ParsedStl, type StlLengthUnit, type ParseStlOptions } from './stl.ts';
 export {
   massProperties,
+  partLineFlags,
+  type PartLineFlags,
   type MassPropertiesResult,
   type NodeMassProperties,
   type MassConfidence,

@@ -2,7 +2,6 @@ import type { Vec3 } from '../geometry/vec3.ts';
 import type { Box3 } from '../geometry/box.ts';
 import type { MassAddOn, MassPartLine, MassPropertiesInput, MassSource } from '../contracts/mass.ts';
 import { isFiniteTensor, type InertiaTensor } from './inertia.ts';
-import { rotationFromEulerZyxDeg, type Mat3 } from './rotation.ts';
 
 /**
  * Mass properties of a machine's assembly tree, its sections, the loose parts, and everything together:
@@ -58,7 +57,7 @@ export interface NodeMassProperties {
   massWithMarginKg: number;
   /** Null when nothing with mass is counted. */
   cogMm: Vec3 | null;
-  /** Union of the counted units' boxes; null when none has a box. */
+  /** Union of the counted units' boxes (a unit without a box adds its CoG point); null when nothing is counted. */
   bboxMm: Box3 | null;
   /** About cogMm, kg·mm²; null when massKg is zero. */
   inertiaKgMm2: InertiaTensor | null;
@@ -90,11 +89,8 @@ export interface MassPropertiesResult {
   machine: NodeMassProperties;
   /** All part lines and all add-ons. */
   total: NodeMassProperties;
-  /** Every gap once. */
+  /** Every gap once. (Per-line flags: see partLineFlags; per node, the counts.) */
   gaps: MassGap[];
-  approximateLineIds: string[];
-  assumedInertiaLineIds: string[];
-  pointMassLineIds: string[];
   /** Input that was ignored but did not make a gap (e.g. a malformed box or inertia tensor). */
   warnings: { id: string; message: string }[];
 }
@@ -108,7 +104,19 @@ const KG_WEIGHED = 16, KG_CATALOGUE = 17, KG_CAD = 18, KG_ESTIMATED = 19;
 const APPROX_KG = 20, LINES = 21, UNITS = 22, APPROX_LINES = 23, ASSUMED_LINES = 24, POINT_LINES = 25, ADDONS = 26;
 const F = 27;
 
-const SOURCE_SLOT: Record<MassSource, number> = { weighed: KG_WEIGHED, catalogue: KG_CATALOGUE, cad: KG_CAD, estimated: KG_ESTIMATED };
+/** Accumulator field for a mass source; none (or anything unknown) counts as estimated. */
+function sourceSlot(source: MassSource | null | undefined): number {
+  switch (source) {
+    case 'weighed':
+      return KG_WEIGHED;
+    case 'catalogue':
+      return KG_CATALOGUE;
+    case 'cad':
+      return KG_CAD;
+    default:
+      return KG_ESTIMATED;
+  }
+}
 
 function isVec3(v: unknown): v is Vec3 {
   return Array.isArray(v) && v.length === 3 && Number.isFinite(v[0]) && Number.isFinite(v[1]) && Number.isFinite(v[2]);
@@ -117,6 +125,59 @@ function isBox(b: unknown): b is Box3 {
   if (!b || typeof b !== 'object') return false;
   const { minMm, maxMm } = b as Box3;
   return isVec3(minMm) && isVec3(maxMm) && minMm[0] <= maxMm[0] && minMm[1] <= maxMm[1] && minMm[2] <= maxMm[2];
+}
+
+/** How massProperties treats one part line, for flags beside it in a table. */
+export interface PartLineFlags {
+  /** No mass or no CoG (or bad data): listed as a gap, not counted. */
+  gap: boolean;
+  /** quantity > 1 without instances: all units at one CoG. */
+  approximate: boolean;
+  /** No own inertia: a solid cuboid filling its box is assumed. */
+  assumedInertia: boolean;
+  /** Neither own inertia nor a box: a point mass. */
+  pointMass: boolean;
+}
+
+/**
+ * The flags massProperties gives a line, per line. Per-line id lists are not part of MassPropertiesResult:
+ * at 100,000 lines building them cost more than the mass properties themselves; each node carries the counts.
+ */
+export function partLineFlags(line: MassPartLine): PartLineFlags {
+  const inst = line.instances && line.instances.length > 0 ? line.instances : null;
+  const gap = lineGapReasons(line, line.quantity, line.unitMassKg, inst) !== null;
+  const hasOwn = line.inertiaKgMm2 != null && isFiniteTensor(line.inertiaKgMm2);
+  const hasBox = line.bboxMm != null && isBox(line.bboxMm);
+  return {
+    gap,
+    approximate: !gap && !inst && line.quantity > 1,
+    assumedInertia: !gap && !hasOwn && hasBox,
+    pointMass: !gap && !hasOwn && !hasBox,
+  };
+}
+
+/** Why a part line cannot be counted, or null when it can (no allocation on the valid path). */
+function lineGapReasons(line: MassPartLine, q: number, m: number | null | undefined, inst: MassPartLine['instances'] | null): string[] | null {
+  let ok = Number.isFinite(q) && q >= 0 && m !== null && m !== undefined && Number.isFinite(m) && m >= 0 && isVec3(line.cogMm);
+  if (ok && inst) {
+    ok = q === inst.length;
+    for (let k = 0; ok && k < inst.length; k++) ok = isVec3(inst[k].positionMm) && (inst[k].eulerZyxDeg === undefined || isVec3(inst[k].eulerZyxDeg));
+  }
+  if (ok) return null;
+  const reasons: string[] = [];
+  if (!Number.isFinite(q) || q < 0) reasons.push(`quantity must be a finite number, 0 or more (got ${String(q)})`);
+  if (m === null || m === undefined) reasons.push('no mass');
+  else if (!Number.isFinite(m) || m < 0) reasons.push(`mass must be a finite number of kg, 0 or more (got ${String(m)})`);
+  if (line.cogMm === null || line.cogMm === undefined) reasons.push('no position (CoG)');
+  else if (!isVec3(line.cogMm)) reasons.push('CoG must be three finite numbers in mm');
+  if (inst) {
+    if (Number.isFinite(q) && q !== inst.length) reasons.push(`quantity is ${q} but ${inst.length} instances are placed`);
+    inst.forEach((it, k) => {
+      if (!isVec3(it.positionMm)) reasons.push(`instance ${k + 1}: position must be three finite numbers in mm`);
+      if (it.eulerZyxDeg !== undefined && !isVec3(it.eulerZyxDeg)) reasons.push(`instance ${k + 1}: rotation must be three finite angles in degrees`);
+    });
+  }
+  return reasons;
 }
 
 /** Scratch contribution of one line or add-on, reused to avoid allocating per line. */
@@ -129,49 +190,54 @@ function resetTmp(): void {
 }
 
 /**
- * Adds to `tmp` q units of mass m at CoG c (world), own inertia `ii` (world axes, about c; 6 numbers
+ * Adds to row offset `o` of `d` q units of mass m at CoG c (world), own inertia `ii` (world axes, about c; 6 numbers
  * xx yy zz xy yz zx in tensor form, per unit) and world box.
  */
-function addUnits(q: number, m: number, cx: number, cy: number, cz: number, ii: ArrayLike<number> | null, box: ArrayLike<number> | null): void {
+function addUnits(d: Float64Array, o: number, q: number, m: number, cx: number, cy: number, cz: number, ii: ArrayLike<number> | null, box: ArrayLike<number> | null): void {
   if (q === 0) return; // no units: no mass and no extent
   const mt = q * m;
-  tmp[M] += mt;
-  tmp[MX] += mt * cx;
-  tmp[MY] += mt * cy;
-  tmp[MZ] += mt * cz;
+  d[o + M] += mt;
+  d[o + MX] += mt * cx;
+  d[o + MY] += mt * cy;
+  d[o + MZ] += mt * cz;
   // Parallel-axis term about the origin, m(|c|²E − ccᵀ), plus q × own inertia.
-  tmp[IXX] += mt * (cy * cy + cz * cz);
-  tmp[IYY] += mt * (cx * cx + cz * cz);
-  tmp[IZZ] += mt * (cx * cx + cy * cy);
-  tmp[IXY] -= mt * cx * cy;
-  tmp[IYZ] -= mt * cy * cz;
-  tmp[IZX] -= mt * cz * cx;
+  d[o + IXX] += mt * (cy * cy + cz * cz);
+  d[o + IYY] += mt * (cx * cx + cz * cz);
+  d[o + IZZ] += mt * (cx * cx + cy * cy);
+  d[o + IXY] -= mt * cx * cy;
+  d[o + IYZ] -= mt * cy * cz;
+  d[o + IZX] -= mt * cz * cx;
   if (ii) {
-    tmp[IXX] += q * ii[0];
-    tmp[IYY] += q * ii[1];
-    tmp[IZZ] += q * ii[2];
-    tmp[IXY] += q * ii[3];
-    tmp[IYZ] += q * ii[4];
-    tmp[IZX] += q * ii[5];
+    d[o + IXX] += q * ii[0];
+    d[o + IYY] += q * ii[1];
+    d[o + IZZ] += q * ii[2];
+    d[o + IXY] += q * ii[3];
+    d[o + IYZ] += q * ii[4];
+    d[o + IZX] += q * ii[5];
   }
-  if (box) {
-    if (box[0] < tmp[BMINX]) tmp[BMINX] = box[0];
-    if (box[1] < tmp[BMINY]) tmp[BMINY] = box[1];
-    if (box[2] < tmp[BMINZ]) tmp[BMINZ] = box[2];
-    if (box[3] > tmp[BMAXX]) tmp[BMAXX] = box[3];
-    if (box[4] > tmp[BMAXY]) tmp[BMAXY] = box[4];
-    if (box[5] > tmp[BMAXZ]) tmp[BMAXZ] = box[5];
-  }
+  // A unit without a box still occupies its CoG: the node's box takes in at least that point.
+  const x0 = box ? box[0] : cx, y0 = box ? box[1] : cy, z0 = box ? box[2] : cz;
+  const x1 = box ? box[3] : cx, y1 = box ? box[4] : cy, z1 = box ? box[5] : cz;
+  if (x0 < d[o + BMINX]) d[o + BMINX] = x0;
+  if (y0 < d[o + BMINY]) d[o + BMINY] = y0;
+  if (z0 < d[o + BMINZ]) d[o + BMINZ] = z0;
+  if (x1 > d[o + BMAXX]) d[o + BMAXX] = x1;
+  if (y1 > d[o + BMAXY]) d[o + BMAXY] = y1;
+  if (z1 > d[o + BMAXZ]) d[o + BMAXZ] = z1;
 }
 
+/** acc[node] += src[srcRow]: sums, except the box, which takes the union. Unrolled: it runs twice per line. */
 function addRow(acc: Float64Array, node: number, src: Float64Array, srcRow = 0): void {
   const o = node * F;
   const s = srcRow * F;
-  for (let k = 0; k < F; k++) {
-    if (k >= BMINX && k <= BMINZ) acc[o + k] = Math.min(acc[o + k], src[s + k]);
-    else if (k >= BMAXX && k <= BMAXZ) acc[o + k] = Math.max(acc[o + k], src[s + k]);
-    else acc[o + k] += src[s + k];
-  }
+  for (let k = 0; k < BMINX; k++) acc[o + k] += src[s + k];
+  if (src[s + BMINX] < acc[o + BMINX]) acc[o + BMINX] = src[s + BMINX];
+  if (src[s + BMINY] < acc[o + BMINY]) acc[o + BMINY] = src[s + BMINY];
+  if (src[s + BMINZ] < acc[o + BMINZ]) acc[o + BMINZ] = src[s + BMINZ];
+  if (src[s + BMAXX] > acc[o + BMAXX]) acc[o + BMAXX] = src[s + BMAXX];
+  if (src[s + BMAXY] > acc[o + BMAXY]) acc[o + BMAXY] = src[s + BMAXY];
+  if (src[s + BMAXZ] > acc[o + BMAXZ]) acc[o + BMAXZ] = src[s + BMAXZ];
+  for (let k = BMAXZ + 1; k < F; k++) acc[o + k] += src[s + k];
 }
 
 const ownInertia = new Float64Array(6);
@@ -202,22 +268,31 @@ function unitInertia(line: { inertiaKgMm2?: number[][] | null }, m: number, box:
 }
 
 const rotInertia = new Float64Array(6);
-/** rotInertia = R I Rᵀ for I in ownInertia (symmetric, 6 components). */
-function rotateOwnInertia(r: Mat3): void {
-  const I = [
-    [ownInertia[0], ownInertia[3], ownInertia[5]],
-    [ownInertia[3], ownInertia[1], ownInertia[4]],
-    [ownInertia[5], ownInertia[4], ownInertia[2]],
-  ];
-  const out = (i: number, j: number): number => {
-    let s = 0;
-    for (let k = 0; k < 3; k++) {
-      const rik = r[i][k];
-      if (rik === 0) continue;
-      for (let l = 0; l < 3; l++) s += rik * I[k][l] * r[j][l];
-    }
-    return s;
-  };
+/** Scratch rotation (row-major, 9 numbers) and R·I, so that turned instances allocate nothing. */
+const R9 = new Float64Array(9);
+const RI = new Float64Array(9);
+
+/** R9 = Rz·Ry·Rx for Euler Z-Y-X angles in degrees (same convention as rotationFromEulerZyxDeg). */
+function setRotation(e: readonly number[]): void {
+  const d = Math.PI / 180;
+  const cz = Math.cos(e[0] * d), sz = Math.sin(e[0] * d);
+  const cy = Math.cos(e[1] * d), sy = Math.sin(e[1] * d);
+  const cx = Math.cos(e[2] * d), sx = Math.sin(e[2] * d);
+  R9[0] = cz * cy; R9[1] = cz * sy * sx - sz * cx; R9[2] = cz * sy * cx + sz * sx;
+  R9[3] = sz * cy; R9[4] = sz * sy * sx + cz * cx; R9[5] = sz * sy * cx - cz * sx;
+  R9[6] = -sy; R9[7] = cy * sx; R9[8] = cy * cx;
+}
+
+/** rotInertia = R I Rᵀ for I in ownInertia (symmetric, 6 components xx yy zz xy yz zx). */
+function rotateOwnInertia(): void {
+  const xx = ownInertia[0], yy = ownInertia[1], zz = ownInertia[2], xy = ownInertia[3], yz = ownInertia[4], zx = ownInertia[5];
+  for (let i = 0; i < 3; i++) {
+    const a = R9[3 * i], b = R9[3 * i + 1], c = R9[3 * i + 2];
+    RI[3 * i] = a * xx + b * xy + c * zx;
+    RI[3 * i + 1] = a * xy + b * yy + c * yz;
+    RI[3 * i + 2] = a * zx + b * yz + c * zz;
+  }
+  const out = (i: number, j: number): number => RI[3 * i] * R9[3 * j] + RI[3 * i + 1] * R9[3 * j + 1] + RI[3 * i + 2] * R9[3 * j + 2];
   rotInertia[0] = out(0, 0);
   rotInertia[1] = out(1, 1);
   rotInertia[2] = out(2, 2);
@@ -226,16 +301,27 @@ function rotateOwnInertia(r: Mat3): void {
   rotInertia[5] = out(2, 0);
 }
 
-/** worldBox = axis-aligned box around the local box turned by R and moved by p (centre and |R|·half size). */
-function transformBox(box: Box3, r: Mat3, p: Vec3): void {
-  const c = [(box.minMm[0] + box.maxMm[0]) / 2, (box.minMm[1] + box.maxMm[1]) / 2, (box.minMm[2] + box.maxMm[2]) / 2];
-  const h = [(box.maxMm[0] - box.minMm[0]) / 2, (box.maxMm[1] - box.minMm[1]) / 2, (box.maxMm[2] - box.minMm[2]) / 2];
+/** worldBox = axis-aligned box around the local box turned by R9 and moved by p (centre and |R|·half size). */
+function transformBox(box: Box3, p: readonly number[]): void {
+  const c0 = (box.minMm[0] + box.maxMm[0]) / 2, c1 = (box.minMm[1] + box.maxMm[1]) / 2, c2 = (box.minMm[2] + box.maxMm[2]) / 2;
+  const h0 = (box.maxMm[0] - box.minMm[0]) / 2, h1 = (box.maxMm[1] - box.minMm[1]) / 2, h2 = (box.maxMm[2] - box.minMm[2]) / 2;
   for (let i = 0; i < 3; i++) {
-    const ci = r[i][0] * c[0] + r[i][1] * c[1] + r[i][2] * c[2] + p[i];
-    const hi = Math.abs(r[i][0]) * h[0] + Math.abs(r[i][1]) * h[1] + Math.abs(r[i][2]) * h[2];
+    const a = R9[3 * i], b = R9[3 * i + 1], c = R9[3 * i + 2];
+    const ci = a * c0 + b * c1 + c * c2 + p[i];
+    const hi = Math.abs(a) * h0 + Math.abs(b) * h1 + Math.abs(c) * h2;
     worldBox[i] = ci - hi;
     worldBox[i + 3] = ci + hi;
   }
+}
+
+/** worldBox = the box moved by (dx, dy, dz), not turned. */
+function setWorldBox(box: Box3, dx: number, dy: number, dz: number): void {
+  worldBox[0] = box.minMm[0] + dx;
+  worldBox[1] = box.minMm[1] + dy;
+  worldBox[2] = box.minMm[2] + dz;
+  worldBox[3] = box.maxMm[0] + dx;
+  worldBox[4] = box.maxMm[1] + dy;
+  worldBox[5] = box.maxMm[2] + dz;
 }
 
 function emptyAcc(n: number): Float64Array {
@@ -251,7 +337,10 @@ function emptyAcc(n: number): Float64Array {
 /**
  * Mass properties of every assembly, section, the loose parts, the machine and the total. See the module
  * comment for the rules.
- * @throws on structural errors that make the tree meaningless, naming the item: duplicate ids, an assembly
+ * Part-line ids are not checked for repeats (the database key guarantees them; a check costs more than the
+ * whole computation at 100,000 lines).
+ * @throws on structural errors that make the tree meaningless, naming the item: duplicate assembly, section or
+ *   add-on ids, an assembly
  *   whose parent is unknown, a cycle of assemblies, an unknown section or assembly referenced by a line,
  *   assembly or add-on, or a margin that is not a finite percentage ≥ 0. Per-line data problems are gaps.
  */
@@ -319,31 +408,34 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
   }
 
   // Node rows: assemblies [0, A), sections [A, A+S), loose, machine, total.
-  const LOOSE = A + S, MACHINE = A + S + 1, TOTAL = A + S + 2;
-  const acc = emptyAcc(A + S + 3);
+  // Rows. Each line is added once, to its assembly's INH row (it inherits the assembly's section) or, when it
+  // names its own section, to its assembly's OVR row and that section's row. Afterwards each INH row goes to
+  // its assembly's section (or loose), then becomes the assembly's TREE row (INH += OVR, in place) and is
+  // rolled up the tree; MACHINE = the lines without an assembly + the root assemblies, TOTAL = MACHINE +
+  // add-ons. Assembly index A stands for "no assembly".
+  const INH = 0, OVR = A + 1, TREE = INH, SEC = 2 * (A + 1);
+  const LOOSE = SEC + S, MACHINE = LOOSE + 1, TOTAL = LOOSE + 2;
+  const acc = emptyAcc(TOTAL + 1);
+  const nodeRow = (i: number): number => (i < A ? TREE + i : i < A + S ? SEC + i - A : i - A - S + LOOSE);
+  // Gap lists by logical node: assemblies [0, A), sections [A, A + S), loose, machine, total.
+  const G_LOOSE = A + S, G_MACHINE = A + S + 1, G_TOTAL = A + S + 2;
   const nodeGaps: MassGap[][] = Array.from({ length: A + S + 3 }, () => []);
   const gaps: MassGap[] = [];
-  const approximateLineIds: string[] = [];
-  const assumedInertiaLineIds: string[] = [];
-  const pointMassLineIds: string[] = [];
   const warnings: { id: string; message: string }[] = [];
-  const lineIds = new Set<string>();
 
   const recordGap = (gap: MassGap, asm: number, sec: number, inMachine: boolean): void => {
     gaps.push(gap);
     for (let j = asm; j !== -1; j = parent[j]) nodeGaps[j].push(gap);
     if (sec !== -1) nodeGaps[A + sec].push(gap);
-    else if (inMachine) nodeGaps[LOOSE].push(gap);
-    if (inMachine) nodeGaps[MACHINE].push(gap);
-    nodeGaps[TOTAL].push(gap);
+    else if (inMachine) nodeGaps[G_LOOSE].push(gap);
+    if (inMachine) nodeGaps[G_MACHINE].push(gap);
+    nodeGaps[G_TOTAL].push(gap);
   };
 
   // --- Part lines.
   for (let li = 0; li < lines.length; li++) {
     const line: MassPartLine = lines[li];
     const label = line.label ?? line.id;
-    if (lineIds.has(line.id)) throw new Error(`Part line "${label}": id "${line.id}" appears twice.`);
-    lineIds.add(line.id);
     let asm = -1;
     if (line.assemblyId != null) {
       const a = asmIndex.get(line.assemblyId);
@@ -357,24 +449,13 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
       sec = s;
     }
 
-    // Gaps: everything that stops the line being counted, all reasons at once.
-    const reasons: string[] = [];
+    // Gaps: everything that stops the line being counted. The common, valid case is checked without
+    // allocating; the reasons are spelt out only for a line that fails.
     const q = line.quantity;
     const m = line.unitMassKg;
-    if (!Number.isFinite(q) || q < 0) reasons.push(`quantity must be a finite number, 0 or more (got ${String(q)})`);
-    if (m === null || m === undefined) reasons.push('no mass');
-    else if (!Number.isFinite(m) || m < 0) reasons.push(`mass must be a finite number of kg, 0 or more (got ${String(m)})`);
-    if (line.cogMm === null || line.cogMm === undefined) reasons.push('no position (CoG)');
-    else if (!isVec3(line.cogMm)) reasons.push('CoG must be three finite numbers in mm');
     const inst = line.instances && line.instances.length > 0 ? line.instances : null;
-    if (inst) {
-      if (Number.isFinite(q) && q !== inst.length) reasons.push(`quantity is ${q} but ${inst.length} instances are placed`);
-      inst.forEach((it, k) => {
-        if (!isVec3(it.positionMm)) reasons.push(`instance ${k + 1}: position must be three finite numbers in mm`);
-        if (it.eulerZyxDeg !== undefined && !isVec3(it.eulerZyxDeg)) reasons.push(`instance ${k + 1}: rotation must be three finite angles in degrees`);
-      });
-    }
-    if (reasons.length > 0) {
+    const reasons = lineGapReasons(line, q, m, inst);
+    if (reasons !== null) {
       recordGap({ lineId: line.id, label, kind: 'line', assemblyId: line.assemblyId ?? null, sectionId: sec === -1 ? null : sections[sec].id, reasons }, asm, sec, true);
       continue;
     }
@@ -393,58 +474,76 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
     }
     const kind = unitInertia(line, unitMass, box, hasOwn);
 
-    resetTmp();
+    // Common case: straight into the assembly's INH row. A line with its own section: into scratch, then
+    // into its assembly's OVR row and the section's row.
+    const own = line.sectionId != null;
+    const asmSlot = asm !== -1 ? asm : A;
+    let d: Float64Array = acc;
+    let o = (INH + asmSlot) * F;
+    if (own) {
+      resetTmp();
+      d = tmp;
+      o = 0;
+    }
     if (!inst) {
-      const bx = box ? [box.minMm[0], box.minMm[1], box.minMm[2], box.maxMm[0], box.maxMm[1], box.maxMm[2]] : null;
-      addUnits(q, unitMass, c[0], c[1], c[2], ownInertia, bx);
+      if (box) setWorldBox(box, 0, 0, 0);
+      addUnits(d, o, q, unitMass, c[0], c[1], c[2], ownInertia, box ? worldBox : null);
       if (q > 1) {
-        tmp[APPROX_LINES] = 1;
-        tmp[APPROX_KG] = q * unitMass;
-        approximateLineIds.push(line.id);
+        d[o + APPROX_LINES] += 1;
+        d[o + APPROX_KG] += q * unitMass;
       }
     } else {
-      for (const it of inst) {
-        const p = it.positionMm;
-        const e = it.eulerZyxDeg;
+      for (let k = 0; k < inst.length; k++) {
+        const p = inst[k].positionMm;
+        const e = inst[k].eulerZyxDeg;
         if (!e || (e[0] === 0 && e[1] === 0 && e[2] === 0)) {
-          const bx = box ? [box.minMm[0] + p[0], box.minMm[1] + p[1], box.minMm[2] + p[2], box.maxMm[0] + p[0], box.maxMm[1] + p[1], box.maxMm[2] + p[2]] : null;
-          addUnits(1, unitMass, c[0] + p[0], c[1] + p[1], c[2] + p[2], ownInertia, bx);
+          if (box) setWorldBox(box, p[0], p[1], p[2]);
+          addUnits(d, o, 1, unitMass, c[0] + p[0], c[1] + p[1], c[2] + p[2], ownInertia, box ? worldBox : null);
         } else {
-          const r = rotationFromEulerZyxDeg(e);
-          rotateOwnInertia(r);
-          if (box) transformBox(box, r, p);
+          setRotation(e);
+          rotateOwnInertia();
+          if (box) transformBox(box, p);
           addUnits(
+            d,
+            o,
             1,
             unitMass,
-            r[0][0] * c[0] + r[0][1] * c[1] + r[0][2] * c[2] + p[0],
-            r[1][0] * c[0] + r[1][1] * c[1] + r[1][2] * c[2] + p[1],
-            r[2][0] * c[0] + r[2][1] * c[1] + r[2][2] * c[2] + p[2],
+            R9[0] * c[0] + R9[1] * c[1] + R9[2] * c[2] + p[0],
+            R9[3] * c[0] + R9[4] * c[1] + R9[5] * c[2] + p[1],
+            R9[6] * c[0] + R9[7] * c[1] + R9[8] * c[2] + p[2],
             rotInertia,
             box ? worldBox : null,
           );
         }
       }
     }
-    const massTotal = q * unitMass;
-    tmp[SOURCE_SLOT[line.massSource ?? 'estimated'] ?? KG_ESTIMATED] += massTotal;
-    tmp[LINES] = 1;
-    tmp[UNITS] = q;
+    d[o + sourceSlot(line.massSource)] += q * unitMass;
+    d[o + LINES] += 1;
+    d[o + UNITS] += q;
     if (kind === 'cuboid') {
-      tmp[ASSUMED_LINES] = 1;
-      assumedInertiaLineIds.push(line.id);
+      d[o + ASSUMED_LINES] += 1;
     } else if (kind === 'point') {
-      tmp[POINT_LINES] = 1;
-      pointMassLineIds.push(line.id);
+      d[o + POINT_LINES] += 1;
     }
-    if (asm !== -1) addRow(acc, asm, tmp);
-    addRow(acc, sec !== -1 ? A + sec : LOOSE, tmp);
-    addRow(acc, MACHINE, tmp);
-    addRow(acc, TOTAL, tmp);
+    if (own) {
+      addRow(acc, OVR + asmSlot, tmp);
+      addRow(acc, SEC + sec, tmp);
+    }
+  }
+
+  // --- Sections and loose from the INH rows; then TREE = INH + OVR.
+  for (let i = 0; i <= A; i++) {
+    const s = i < A ? effSection[i] : -1;
+    addRow(acc, s !== -1 ? SEC + s : LOOSE, acc, INH + i);
+    addRow(acc, TREE + i, acc, OVR + i); // INH becomes TREE
   }
 
   // --- Roll assemblies up, deepest first, so each parent receives its finished children.
   const order = Array.from({ length: A }, (_, i) => i).sort((a, b) => depth[b] - depth[a]);
-  for (const i of order) if (parent[i] !== -1) addRow(acc, parent[i], acc, i);
+  for (const i of order) if (parent[i] !== -1) addRow(acc, TREE + parent[i], acc, TREE + i);
+  addRow(acc, MACHINE, acc, TREE + A);
+  for (let i = 0; i < A; i++) if (parent[i] === -1) addRow(acc, MACHINE, acc, TREE + i);
+  addRow(acc, TOTAL, acc, MACHINE);
 
   // --- Add-ons: their section and the total.
   const addOnIds = new Set<string>();
@@ -477,16 +576,18 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
     unitInertia(ad, mass, box, hasOwn);
     resetTmp();
     const c = ad.cogMm as Vec3;
-    addUnits(1, mass, c[0], c[1], c[2], ownInertia, box ? [...box.minMm, ...box.maxMm] : null);
-    tmp[SOURCE_SLOT[ad.massSource ?? 'estimated'] ?? KG_ESTIMATED] += mass;
+    if (box) setWorldBox(box, 0, 0, 0);
+    addUnits(tmp, 0, 1, mass, c[0], c[1], c[2], ownInertia, box ? worldBox : null);
+    tmp[sourceSlot(ad.massSource)] += mass;
     tmp[ADDONS] = 1;
-    addRow(acc, A + sec, tmp);
+    addRow(acc, SEC + sec, tmp);
     addRow(acc, TOTAL, tmp);
   }
 
   // --- Results.
   const k = 1 + marginPercent / 100;
-  const node = (row: number, id: string, kind: NodeMassProperties['kind']): NodeMassProperties => {
+  const node = (g: number, id: string, kind: NodeMassProperties['kind']): NodeMassProperties => {
+    const row = nodeRow(g);
     const o = row * F;
     const m = acc[o + M];
     let cog: Vec3 | null = null;
@@ -505,7 +606,7 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
     const hasBox = acc[o + BMINX] <= acc[o + BMAXX];
     const w = acc[o + KG_WEIGHED], ca = acc[o + KG_CATALOGUE], cad = acc[o + KG_CAD], est = acc[o + KG_ESTIMATED];
     const pct = (v: number): number => (m > 0 ? (v / m) * 100 : 0);
-    const g = nodeGaps[row];
+    const gl = nodeGaps[g];
     return {
       id,
       kind,
@@ -527,8 +628,8 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
       lineCount: acc[o + LINES],
       unitCount: acc[o + UNITS],
       addOnCount: acc[o + ADDONS],
-      gaps: g,
-      complete: g.length === 0,
+      gaps: gl,
+      complete: gl.length === 0,
       approximateLineCount: acc[o + APPROX_LINES],
       approximateMassKg: acc[o + APPROX_KG],
       assumedInertiaLineCount: acc[o + ASSUMED_LINES],
@@ -543,13 +644,10 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
     marginPercent,
     assemblies: assemblyOut,
     sections: sectionOut,
-    loose: node(LOOSE, 'loose', 'loose'),
-    machine: node(MACHINE, 'machine', 'machine'),
-    total: node(TOTAL, 'total', 'total'),
+    loose: node(G_LOOSE, 'loose', 'loose'),
+    machine: node(G_MACHINE, 'machine', 'machine'),
+    total: node(G_TOTAL, 'total', 'total'),
     gaps,
-    approximateLineIds,
-    assumedInertiaLineIds,
-    pointMassLineIds,
     warnings,
   };
 }

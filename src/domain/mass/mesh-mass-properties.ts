@@ -92,7 +92,9 @@ export function meshMassProperties(
     const f = p.first;
     const fmt = (v: number[]): string => `(${v.map((c) => +c.toPrecision(9)).join(', ')})`;
     const kinds = [
-      p.openEdges ? `${p.openEdges} open edge${p.openEdges === 1 ? '' : 's'} (used by one triangle only)` : '',
+      p.openEdges
+        ? `${p.openEdges} open edge${p.openEdges === 1 ? '' : 's'} (used by one triangle only: a hole, a missing face, or faces meeting mid-edge; export the part as a closed, watertight mesh)`
+        : '',
       p.overusedEdges ? `${p.overusedEdges} edge${p.overusedEdges === 1 ? '' : 's'} shared by more than two triangles` : '',
       p.misorientedEdges ? `${p.misorientedEdges} edge${p.misorientedEdges === 1 ? '' : 's'} where two triangles run the same way (a face turned over)` : '',
     ].filter(Boolean);

@@ -191,6 +191,20 @@ describe('meshMassProperties: invariants and an independent formula', () => {
     expect(inside.volumeMm3).toBeGreaterThan(0);
   });
 
+  it('welds corners that differ by rounding noise, also where the noise straddles a grid boundary', () => {
+    // A cube centred on the origin: 0 is exactly halfway across its extent, a worst case for rounding to a
+    // grid. Nudge every other copy of each corner by ±1e-13 mm, as trigonometric seams do.
+    const t = cuboid(100, 100, 100, [-50, -50, -50]).map((v, i) => (i % 2 ? v + 1e-13 : v - 1e-13));
+    // The same cube built as two halves without the inner faces: the corners at x = 0 sit exactly on a grid
+    // boundary (halfway across), and the right half writes them as −1e-14.
+    const left = cuboid(50, 100, 100, [-50, -50, -50]).slice(0, 9 * 10); // without its +x face
+    const rightFull = cuboid(50, 100, 100, [0, -50, -50]);
+    const right = [...rightFull.slice(0, 9 * 8), ...rightFull.slice(9 * 10)].map((v, i) => (i % 3 === 0 && v === 0 ? -1e-14 : v)); // without its −x face
+    const mid = [...left, ...right];
+    expect(meshMassProperties(t, 1000).volumeMm3).toBeCloseTo(1e6, 6);
+    expect(meshMassProperties(mid, 1000).volumeMm3).toBeCloseTo(1e6, 6);
+  });
+
   it('takes Float32Array and number[] alike', () => {
     const t = cuboid(10, 20, 30, [1, 2, 3]);
     expect(meshMassProperties(Float32Array.from(t), 1000).volumeMm3).toBeCloseTo(6000, 6);
