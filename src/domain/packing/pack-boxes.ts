@@ -83,6 +83,7 @@ export async function packBoxes(container: PackContainer, items: PackItem[], opt
     types: prep.types,
     groups: prep.groups,
     fullSupport: options?.fullSupport ?? true,
+    generalBlocks: options?.mixedBlocks,
   });
   const search = await runSearch(solver, options, start);
   const best = search.best;

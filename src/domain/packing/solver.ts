@@ -298,16 +298,23 @@ export class Solver {
       let y = fromRight ? sy0 + sy - dy : sy0;
       if (needSupport) {
         if (!this.supported(b, x, y)) {
+          // Try the corners of the tops below, keep the supported one nearest the space's corner.
           let ok = false;
-          for (let r = 0; r < this.nRects && !ok; r++) {
+          let bestD = Infinity;
+          const ax = sx0;
+          const ay = fromRight ? sy0 + sy - dy : sy0;
+          for (let r = 0; r < this.nRects; r++) {
             const rx = this.rects[r * 4];
             let ry = fromRight ? this.rects[r * 4 + 3] - dy : this.rects[r * 4 + 1];
             if (rx + dx > sx0 + sx + EPS_MM) continue;
             if (ry < sy0) ry = sy0;
             if (ry + dy > sy0 + sy + EPS_MM) ry = sy0 + sy - dy;
+            const d = rx - ax + Math.abs(ry - ay);
+            if (d >= bestD) continue;
             if (this.supported(b, rx, ry)) {
               x = rx;
               y = ry;
+              bestD = d;
               ok = true;
             }
           }

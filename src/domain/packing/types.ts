@@ -70,6 +70,11 @@ export interface PackOptions {
    * real loads must not hang in the air. Set false only for the benchmark's unsupported variant.
    */
   fullSupport?: boolean;
+  /**
+   * Let one search step place a block of items from different lines (side by side or stacked, filling at
+   * least 98 % of its box). Default: automatic (on when lines hold few items on average).
+   */
+  mixedBlocks?: boolean;
   /** Called now and then with the share of the budget used (0..1) and the best volume utilisation so far (0..1). */
   onProgress?: (fraction: number, bestUtilisation: number) => void;
 }
