@@ -107,7 +107,7 @@ export function createApp(base: BaseDeps): express.Express {
     '/api',
     session({
       name: deps.sessionCookieName,
-      store: new PgStore({ pool: base.sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      store: new PgStore({ pool: base.sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60, errorLog: (...args: unknown[]) => log.warn({ detail: args.map(String) }, 'session store error') }),
       secret: config.SESSION_SECRET,
       resave: false,
       saveUninitialized: false,
