@@ -54,26 +54,24 @@ export interface PlacedNode {
   prev: PlacedNode | null;
 }
 
-/** One search state. Spaces are 6 numbers each: x0 y0 z0 x1 y1 z1. */
+/**
+ * One search state. Spaces are 6 numbers each: x0 y0 z0 x1 y1 z1. Plain arrays, not typed arrays: states
+ * are cloned for every beam child and greedy completion, and V8 copies small plain arrays far faster
+ * than it allocates typed-array backing stores.
+ */
 export class State {
-  sp: Float64Array;
-  n: number;
-  dead: Uint8Array;
-  rem: Int32Array;
+  sp: number[] = [];
+  n = 0;
+  dead: number[] = [];
+  rem: number[] = [];
   placed: PlacedNode | null = null;
   volume = 0;
   massKg = 0;
   group = 0;
-  constructor(cap: number, types: number) {
-    this.sp = new Float64Array(cap * 6);
-    this.dead = new Uint8Array(cap);
-    this.n = 0;
-    this.rem = new Int32Array(types);
-  }
   clone(): State {
-    const s = Object.create(State.prototype) as State;
-    s.sp = this.sp.slice(0, Math.max(this.n * 6, 6 * 64));
-    s.dead = this.dead.slice(0, Math.max(this.n, 64));
+    const s = new State();
+    s.sp = this.sp.slice(0, this.n * 6);
+    s.dead = this.dead.slice(0, this.n);
     s.n = this.n;
     s.rem = this.rem.slice();
     s.placed = this.placed;
@@ -99,8 +97,6 @@ export class Solver {
   private readonly hasLimits: boolean;
   /** Scratch buffers (the solver is not re-entrant). */
   private pieces = new Float64Array(6 * 1024);
-  private out = new Float64Array(6 * 1024);
-  private outDead = new Uint8Array(1024);
   private rects = new Float64Array(4 * 256);
   private nRects = 0;
   private typeGroup: Int32Array;
@@ -118,9 +114,10 @@ export class Solver {
   }
 
   root(): State {
-    const s = new State(64, this.nTypes);
+    const s = new State();
     for (let t = 0; t < this.nTypes; t++) s.rem[t] = this.cfg.types[t].count;
-    s.sp.set([0, 0, 0, this.cfg.L, this.cfg.W, this.cfg.H]);
+    s.sp = [0, 0, 0, this.cfg.L, this.cfg.W, this.cfg.H];
+    s.dead = [0];
     s.n = 1;
     return s;
   }
@@ -166,17 +163,19 @@ export class Solver {
     }
     const last = s.n - 1;
     if (i !== last) {
-      s.sp.copyWithin(i * 6, last * 6, last * 6 + 6);
+      for (let k = 0; k < 6; k++) s.sp[i * 6 + k] = s.sp[last * 6 + k];
       s.dead[i] = s.dead[last];
     }
     s.n = last;
+    s.sp.length = last * 6;
+    s.dead.length = last;
   }
 
   /** Moves on to the next loading group; returns false when there is none. */
   nextGroup(s: State): boolean {
     if (s.group >= this.cfg.groups - 1) return false;
     s.group++;
-    s.dead.fill(0, 0, s.n);
+    for (let i = 0; i < s.n; i++) s.dead[i] = 0;
     return true;
   }
 
@@ -389,7 +388,11 @@ export class Solver {
   }
 
   /** Smallest extents along x, y, z and volume of any item still to place (current group or later). */
-  private minima(s: State): [number, number, number, number] {
+  private mx = 0;
+  private my = 0;
+  private mz = 0;
+  private mv = 0;
+  private minima(s: State): void {
     let mx = Infinity;
     let my = Infinity;
     let mz = Infinity;
@@ -406,41 +409,47 @@ export class Solver {
       }
       if (ty.volumeMm3 < mv) mv = ty.volumeMm3;
     }
-    return [mx, my, mz, mv];
+    this.mx = mx - EPS_MM;
+    this.my = my - EPS_MM;
+    this.mz = mz - EPS_MM;
+    this.mv = mv * (1 - 1e-9);
   }
 
-  private subtract(s: State, bx0: number, by0: number, bz0: number, bx1: number, by1: number, bz1: number): void {
-    const [mx, my, mz, mv] = this.minima(s);
-    const sp = s.sp;
-    let nOut = 0;
-    let nP = 0;
-    if (this.out.length < s.n * 6 + 6) {
-      this.out = new Float64Array(s.n * 12 + 6);
-      this.outDead = new Uint8Array(s.n * 2 + 1);
+  /** Can any remaining item fit in a cuboid of these extents (cheap necessary test)? */
+  private usable(a: number, b: number, c: number): boolean {
+    return a >= this.mx && b >= this.my && c >= this.mz && a * b * c >= this.mv;
+  }
+
+  private nP = 0;
+  private addPiece(x0: number, y0: number, z0: number, x1: number, y1: number, z1: number): void {
+    if (!this.usable(x1 - x0, y1 - y0, z1 - z0)) return;
+    const q = this.nP * 6;
+    if (this.pieces.length < q + 6) {
+      const p = new Float64Array(this.pieces.length * 2);
+      p.set(this.pieces);
+      this.pieces = p;
     }
-    const out = this.out;
-    const usable = (x0: number, y0: number, z0: number, x1: number, y1: number, z1: number): boolean => {
-      const a = x1 - x0;
-      const b = y1 - y0;
-      const c = z1 - z0;
-      return a >= mx - EPS_MM && b >= my - EPS_MM && c >= mz - EPS_MM && a * b * c >= mv * (1 - 1e-9);
-    };
-    const addPiece = (x0: number, y0: number, z0: number, x1: number, y1: number, z1: number) => {
-      if (!usable(x0, y0, z0, x1, y1, z1)) return;
-      if (this.pieces.length < nP * 6 + 6) {
-        const p = new Float64Array(this.pieces.length * 2);
-        p.set(this.pieces);
-        this.pieces = p;
-      }
-      const q = nP * 6;
-      this.pieces[q] = x0;
-      this.pieces[q + 1] = y0;
-      this.pieces[q + 2] = z0;
-      this.pieces[q + 3] = x1;
-      this.pieces[q + 4] = y1;
-      this.pieces[q + 5] = z1;
-      nP++;
-    };
+    const P = this.pieces;
+    P[q] = x0;
+    P[q + 1] = y0;
+    P[q + 2] = z0;
+    P[q + 3] = x1;
+    P[q + 4] = y1;
+    P[q + 5] = z1;
+    this.nP++;
+  }
+
+  /**
+   * Removes the cuboid from the free space: every space it meets is replaced by its (up to six) parts
+   * outside the cuboid; parts inside another space, or too small for any item left, are dropped. The
+   * state's space list is rewritten in place (kept spaces first, then new parts).
+   */
+  private subtract(s: State, bx0: number, by0: number, bz0: number, bx1: number, by1: number, bz1: number): void {
+    this.minima(s);
+    const sp = s.sp;
+    const dead = s.dead;
+    let nOut = 0;
+    this.nP = 0;
     for (let i = 0; i < s.n; i++) {
       const o = i * 6;
       const x0 = sp[o];
@@ -450,36 +459,29 @@ export class Solver {
       const y1 = sp[o + 4];
       const z1 = sp[o + 5];
       if (x1 <= bx0 + EPS_MM || x0 >= bx1 - EPS_MM || y1 <= by0 + EPS_MM || y0 >= by1 - EPS_MM || z1 <= bz0 + EPS_MM || z0 >= bz1 - EPS_MM) {
-        if (!usable(x0, y0, z0, x1, y1, z1)) continue;
+        if (!this.usable(x1 - x0, y1 - y0, z1 - z0)) continue;
+        // Compact in place (nOut <= i).
         const q = nOut * 6;
-        out[q] = x0;
-        out[q + 1] = y0;
-        out[q + 2] = z0;
-        out[q + 3] = x1;
-        out[q + 4] = y1;
-        out[q + 5] = z1;
-        this.outDead[nOut] = s.dead[i];
+        sp[q] = x0;
+        sp[q + 1] = y0;
+        sp[q + 2] = z0;
+        sp[q + 3] = x1;
+        sp[q + 4] = y1;
+        sp[q + 5] = z1;
+        dead[nOut] = dead[i];
         nOut++;
         continue;
       }
-      if (bx0 > x0 + EPS_MM) addPiece(x0, y0, z0, bx0, y1, z1);
-      if (bx1 < x1 - EPS_MM) addPiece(bx1, y0, z0, x1, y1, z1);
-      if (by0 > y0 + EPS_MM) addPiece(x0, y0, z0, x1, by0, z1);
-      if (by1 < y1 - EPS_MM) addPiece(x0, by1, z0, x1, y1, z1);
-      if (bz0 > z0 + EPS_MM) addPiece(x0, y0, z0, x1, y1, bz0);
-      if (bz1 < z1 - EPS_MM) addPiece(x0, y0, bz1, x1, y1, z1);
+      if (bx0 > x0 + EPS_MM) this.addPiece(x0, y0, z0, bx0, y1, z1);
+      if (bx1 < x1 - EPS_MM) this.addPiece(bx1, y0, z0, x1, y1, z1);
+      if (by0 > y0 + EPS_MM) this.addPiece(x0, y0, z0, x1, by0, z1);
+      if (by1 < y1 - EPS_MM) this.addPiece(x0, by1, z0, x1, y1, z1);
+      if (bz0 > z0 + EPS_MM) this.addPiece(x0, y0, z0, x1, y1, bz0);
+      if (bz1 < z1 - EPS_MM) this.addPiece(x0, y0, bz1, x1, y1, z1);
     }
     const nOld = nOut;
+    const nP = this.nP;
     const P = this.pieces;
-    if (this.out.length < (nOut + nP) * 6) {
-      const bigger = new Float64Array((nOut + nP) * 12);
-      bigger.set(this.out.subarray(0, nOut * 6));
-      this.out = bigger;
-      const d = new Uint8Array((nOut + nP) * 2);
-      d.set(this.outDead.subarray(0, nOut));
-      this.outDead = d;
-    }
-    const out2 = this.out;
     for (let p = 0; p < nP; p++) {
       const q = p * 6;
       const x0 = P[q];
@@ -491,7 +493,7 @@ export class Solver {
       let inside = false;
       for (let j = 0; j < nOld && !inside; j++) {
         const r = j * 6;
-        inside = out2[r] <= x0 + EPS_MM && out2[r + 1] <= y0 + EPS_MM && out2[r + 2] <= z0 + EPS_MM && out2[r + 3] >= x1 - EPS_MM && out2[r + 4] >= y1 - EPS_MM && out2[r + 5] >= z1 - EPS_MM;
+        inside = sp[r] <= x0 + EPS_MM && sp[r + 1] <= y0 + EPS_MM && sp[r + 2] <= z0 + EPS_MM && sp[r + 3] >= x1 - EPS_MM && sp[r + 4] >= y1 - EPS_MM && sp[r + 5] >= z1 - EPS_MM;
       }
       for (let j = 0; j < nP && !inside; j++) {
         if (j === p) continue;
@@ -503,26 +505,18 @@ export class Solver {
       }
       if (inside) continue;
       const r = nOut * 6;
-      out2[r] = x0;
-      out2[r + 1] = y0;
-      out2[r + 2] = z0;
-      out2[r + 3] = x1;
-      out2[r + 4] = y1;
-      out2[r + 5] = z1;
-      this.outDead[nOut] = 0;
+      sp[r] = x0;
+      sp[r + 1] = y0;
+      sp[r + 2] = z0;
+      sp[r + 3] = x1;
+      sp[r + 4] = y1;
+      sp[r + 5] = z1;
+      dead[nOut] = 0;
       nOut++;
     }
-    this.commit(s, out2, nOut);
-  }
-
-  private commit(s: State, out: Float64Array, nOut: number): void {
-    if (s.sp.length < nOut * 6) {
-      s.sp = new Float64Array(nOut * 12);
-      s.dead = new Uint8Array(nOut * 2);
-    }
-    s.sp.set(out.subarray(0, nOut * 6));
-    s.dead.set(this.outDead.subarray(0, nOut));
     s.n = nOut;
+    sp.length = nOut * 6;
+    dead.length = nOut;
   }
 
   // ---------------------------------------------------------------- greedy
