@@ -51,6 +51,7 @@ export const routes: RouteObject[] = [
             ErrorBoundary: RouteErrorBoundary,
             children: [
               screen(undefined, () => import('./routes/production-overview.tsx')),
+              screen('machine', () => import('../features/machine/machine-route.tsx')),
               screen('settings', () => import('./routes/production-settings.tsx')),
               screen('*', () => import('./routes/not-found.tsx')),
             ],

@@ -6,7 +6,7 @@ import { json } from './machine.repository.ts';
 /**
  * The demo machine: Orrery Seven's breakdown (an invented walk-around orrery, 4.2 m across and 3.4 m high),
  * generated deterministically so every database gets the same ~2,500 lines and a reviewer can check a
- * section's mass by hand against the scenario's rough figures (BQ 4 × ~95 kg, DC ~420, AC ~180, PC ~190,
+ * section's mass by hand against the scenario's rough figures (BQ 4 × ~95 kg, DC ~420, AC ~180, PC ~170,
  * CD ~70, TF ~260 with its frames). Frame: origin at the centre of the base on the floor, z up, mm, kg.
  * A few lines are left without mass or position on purpose, so the gaps list has something to show.
  */
@@ -81,7 +81,7 @@ const GROUPS: GroupSpec[] = [
     section: 'DC',
     keepTogether: true,
     leaves: [
-      { number: '210', name: 'Motor and gearbox', massKg: 165, made: 12, bought: 60, materials: ['steel', 'aluminium'], region: ring([0, 450], [0, 700]) },
+      { number: '210', name: 'Motor and gearbox', massKg: 140, made: 12, bought: 60, materials: ['steel', 'aluminium'], region: ring([0, 450], [0, 700]) },
       { number: '220', name: 'Main shaft', massKg: 96, made: 20, bought: 30, materials: ['steel'], region: ring([0, 120], [200, 2600]) },
       { number: '230', name: 'Bearing housings', massKg: 88, made: 36, bought: 70, materials: ['steel', 'brass'], region: ring([0, 300], [250, 2500]) },
       { number: '240', name: 'Gear train', massKg: 71, made: 120, bought: 90, materials: ['acetal', 'brass', 'steel'], region: ring([0, 520], [700, 1300]) },
@@ -93,8 +93,8 @@ const GROUPS: GroupSpec[] = [
     section: 'AC',
     keepTogether: true,
     leaves: [
-      { number: '310', name: 'Carousel hub', massKg: 64, made: 40, bought: 80, materials: ['steel', 'aluminium'], region: ring([120, 600], [2400, 2900]) },
-      { number: '320', name: 'Arms and braces', massKg: 116, made: 110, bought: 150, materials: ['steel', 'aluminium'], region: ring([600, 2050], [2500, 3300]) },
+      { number: '310', name: 'Carousel hub', massKg: 40, made: 40, bought: 80, materials: ['steel', 'aluminium'], region: ring([120, 600], [2400, 2900]) },
+      { number: '320', name: 'Arms and braces', massKg: 60, made: 110, bought: 150, materials: ['steel', 'aluminium'], region: ring([600, 2050], [2500, 3300]) },
     ],
   },
   {
@@ -276,10 +276,10 @@ export async function seedDemoMachine(trx: Knex.Transaction, productionId: strin
 
   // Base quadrant 1 on four load cells at its support feet: the weighed figures govern.
   const feet: [number, number][] = [
-    [1550, 150],
-    [2050, 250],
-    [150, 1550],
-    [250, 2050],
+    [830, 480],
+    [1830, 480],
+    [1830, 1480],
+    [830, 1480],
   ];
   const readings = feet.map((p, i) => ({ positionMm: p, readingKg: [24.1, 25.3, 23.8, 24.9][i] }));
   const derived = weighingFromLoadCells(readings);

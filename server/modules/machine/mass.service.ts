@@ -79,7 +79,6 @@ export interface MachineMass {
   total: NodeMassProperties;
   gaps: MassPropertiesResult['gaps'];
   warnings: MassPropertiesResult['warnings'];
-  approximateLineIds: string[];
 }
 
 /**
@@ -120,7 +119,6 @@ export function computeMachineMass(
     total: result.total,
     gaps: result.gaps,
     warnings: result.warnings,
-    approximateLineIds: result.approximateLineIds,
   };
 }
 

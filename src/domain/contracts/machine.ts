@@ -85,6 +85,8 @@ export const breakdownLineView = partLineView.extend({
 export type BreakdownLineView = z.infer<typeof breakdownLineView>;
 
 export const breakdownPageView = z.object({
+  /** Every assembly of the machine (a few hundred at most), for the tree. */
+  assemblies: z.array(assemblyView),
   lines: z.array(breakdownLineView),
   total: z.number().int(),
   offset: z.number().int(),
@@ -273,3 +275,92 @@ export const meshUploadFields = z.object({
 });
 
 export const exportQuery = z.object({ format: z.enum(['csv', 'xlsx']).default('csv') });
+
+// ---------------------------------------------------------------------------------------------- mass properties
+
+/** A box as sent back (already checked by the core, so no refinement here). */
+const boxView = z.object({ minMm: vec3Mm, maxMm: vec3Mm });
+
+export const massConfidenceView = z.object({
+  weighedKg: z.number(),
+  catalogueKg: z.number(),
+  cadKg: z.number(),
+  estimatedKg: z.number(),
+  weighedOrCatalogueKg: z.number(),
+  weighedOrCataloguePercent: z.number(),
+  cadPercent: z.number(),
+  estimatedPercent: z.number(),
+});
+
+export const massGapView = z.object({
+  lineId: z.string(),
+  label: z.string(),
+  kind: z.enum(['line', 'addOn']),
+  assemblyId: z.string().nullable(),
+  sectionId: z.string().nullable(),
+  reasons: z.array(z.string()),
+});
+export type MassGapView = z.infer<typeof massGapView>;
+
+/** The core's NodeMassProperties as the API sends it. */
+export const nodeMassView = z.object({
+  id: z.string(),
+  kind: z.enum(['assembly', 'section', 'loose', 'machine', 'total']),
+  massKg: z.number(),
+  massWithMarginKg: z.number(),
+  cogMm: vec3Mm.nullable(),
+  bboxMm: boxView.nullable(),
+  inertiaKgMm2: inertiaTensorKgMm2.nullable(),
+  confidence: massConfidenceView,
+  lineCount: z.number(),
+  unitCount: z.number(),
+  addOnCount: z.number(),
+  gaps: z.array(massGapView),
+  complete: z.boolean(),
+  approximateLineCount: z.number(),
+  approximateMassKg: z.number(),
+  assumedInertiaLineCount: z.number(),
+  pointMassLineCount: z.number(),
+});
+export type NodeMassView = z.infer<typeof nodeMassView>;
+
+export const weighingComparisonView = z.object({
+  differenceKg: z.number(),
+  differencePercent: z.number(),
+  cogOffsetMm: z.object({ dx: z.number(), dy: z.number(), distance: z.number() }).nullable(),
+  massDifferenceLarge: z.boolean(),
+  cogOffsetLarge: z.boolean(),
+  large: z.boolean(),
+  notes: z.array(z.string()),
+});
+export type WeighingComparisonView = z.infer<typeof weighingComparisonView>;
+
+export const sectionMassView = nodeMassView.extend({
+  /** The margin that applies: the section's own, else the machine's, %. */
+  marginPercent: z.number(),
+  /** The latest weighing (it governs) with its comparison to the computed figures. */
+  weighing: weighingView.extend({ comparison: weighingComparisonView.nullable() }).nullable(),
+});
+export type SectionMassView = z.infer<typeof sectionMassView>;
+
+export const machineMassView = z.object({
+  marginPercent: z.number(),
+  sections: z.record(z.string(), sectionMassView),
+  assemblies: z.record(z.string(), nodeMassView),
+  loose: nodeMassView,
+  machine: nodeMassView,
+  total: nodeMassView,
+  gaps: z.array(massGapView),
+  warnings: z.array(z.object({ id: z.string(), message: z.string() })),
+});
+export type MachineMassView = z.infer<typeof machineMassView>;
+
+export const machineSummaryView = z.object({
+  machine: machineView,
+  sections: z.array(sectionView),
+  addOns: z.array(addOnView),
+  materials: z.array(materialView),
+  lineCount: z.number(),
+  assemblyCount: z.number(),
+});
+export type MachineSummaryView = z.infer<typeof machineSummaryView>;
