@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/security/passwords.ts';
 import { seedDemoMachine } from '../server/modules/machine/demo-machine.ts';
+import { seedDemoLifting } from '../server/modules/lifting/demo-lifting.ts';
+import { seedDemoCrates } from '../server/modules/crates/demo-crates.ts';
 
 /**
  * The demo scenario (an invented touring mechanical orrery and eight invented venues). It is
@@ -58,5 +60,11 @@ export async function seed(knex: Knex): Promise<void> {
 
     // The tour's machine breakdown (the workshop rebuild starts empty, to show the empty screens).
     await seedDemoMachine(trx, tour.id, 'Orrery Seven');
+
+    // Rigging gear, hanging points and the drive core's lift plan, submitted by the planner.
+    const plannerRow = await trx('users').where({ email: 'planner@ballast.example' }).first('id');
+    await seedDemoLifting(trx, tour.id, { plannerId: plannerRow.id, venueIds: new Map(venues.map((v) => [v.name as string, v.id as string])) });
+    // Its crates, vehicles and a first packed leg.
+    await seedDemoCrates(trx, tour.id);
   });
 }

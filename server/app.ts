@@ -14,6 +14,7 @@ import type { Config } from './config/env.ts';
 import type { Mailer } from './mail/mailer.ts';
 import { AppError, errorHandler } from './http/errors.ts';
 import { mountRoutes, type RouteDef } from './http/routes.ts';
+import { jsonGuard } from './http/json-guard.ts';
 import { createPassport, loadActor } from './modules/auth/passport.ts';
 import { createSignInLimiter, type SignInLimiter } from './modules/auth/sign-in-limiter.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
@@ -22,6 +23,11 @@ import { productionRoutes } from './modules/productions/productions.routes.ts';
 import { adminRoutes } from './modules/admin/admin.routes.ts';
 import { invitationRoutes } from './modules/invitations/invitations.routes.ts';
 import { machineRoutes } from './modules/machine/machine.routes.ts';
+import { venueRoutes } from './modules/venues/venues.routes.ts';
+import { tourRoutes } from './modules/tour/tour.routes.ts';
+import { liftingRoutes } from './modules/lifting/lifting.routes.ts';
+import { crateRoutes } from './modules/crates/crates.routes.ts';
+import { loadRoutes } from './modules/loads/loads.routes.ts';
 
 export interface AppDeps {
   config: Config;
@@ -47,6 +53,11 @@ function modules(deps: AppDeps): [string, RouteDef[]][] {
     ['/api/productions', productionRoutes(deps)],
     ['/api/admin', adminRoutes(deps)],
     ['/api/productions/:productionId/machine', machineRoutes(deps)],
+    ['/api/productions/:productionId/venues', venueRoutes(deps)],
+    ['/api/productions/:productionId/tour', tourRoutes(deps)],
+    ['/api/productions/:productionId/lifting', liftingRoutes(deps)],
+    ['/api/productions/:productionId/crates', crateRoutes(deps)],
+    ['/api/productions/:productionId/loads', loadRoutes(deps)],
   ];
 }
 
@@ -101,6 +112,7 @@ export function createApp(base: BaseDeps): express.Express {
     }),
   );
   app.use(express.json({ limit: '1mb' }));
+  app.use(jsonGuard);
 
   const PgStore = connectPgSimple(session);
   app.use(

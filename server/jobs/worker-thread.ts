@@ -1,0 +1,30 @@
+import { Worker } from 'node:worker_threads';
+
+/**
+ * Runs a TypeScript module on a worker thread and resolves with the first `{ type: 'done' }` message it
+ * posts; `{ type: 'progress' }` messages go to onMessage. The module is loaded through tsx's loader,
+ * registered inside the worker first (the app and the tests both run TypeScript sources directly).
+ * A worker that outlives `timeoutMs` is terminated.
+ */
+export function runOnWorker<TDone>(moduleUrl: URL, workerData: unknown, onMessage: (msg: { type: string; [k: string]: unknown }) => void, timeoutMs: number): Promise<TDone> {
+  const boot = `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(moduleUrl.href)}); });`;
+  return new Promise<TDone>((resolve, reject) => {
+    const worker = new Worker(boot, { eval: true, workerData });
+    let settled = false;
+    const finish = (fn: () => void) => {
+      if (settled) return;
+      settled = true;
+      clearTimeout(timer);
+      fn();
+      void worker.terminate();
+    };
+    const timer = setTimeout(() => finish(() => reject(new Error(`The worker ran longer than ${Math.round(timeoutMs / 1000)} s and was stopped.`))), timeoutMs);
+    worker.on('message', (msg: { type: string; [k: string]: unknown }) => {
+      if (msg?.type === 'done') finish(() => resolve(msg.value as TDone));
+      else if (msg?.type === 'error') finish(() => reject(new Error(String(msg.message))));
+      else onMessage(msg);
+    });
+    worker.on('error', (err) => finish(() => reject(err)));
+    worker.on('exit', (code) => finish(() => reject(new Error(`The worker stopped (exit code ${code}) before it finished.`))));
+  });
+}
