@@ -40,7 +40,10 @@ export interface MeshClosureProblems {
 }
 
 export interface MeshClosureOptions {
-  /** Corners closer than this (per axis) are one vertex. Default: 2⁻³² of the largest bounding-box extent. */
+  /**
+   * Corners in the same cell of a grid this fine (mm) are one vertex. Default and finest: 2⁻²⁶ of the largest
+   * bounding-box extent (about 15 nm for a 1 m part); a coarser tolerance may be given, a finer one is not used.
+   */
   weldToleranceMm?: number;
 }
 
@@ -88,16 +91,21 @@ interface Welded {
 }
 
 /** Step 1: corners → vertex ids, equal quantised coordinates giving one id. */
-function weld(t: ArrayLike<number>, cornerCount: number, weldToleranceMm: number | undefined): Welded {
+function weld(t: ArrayLike<number>, cornerCount: number, weldToleranceMm: number | undefined, bbox?: { minMm: number[]; maxMm: number[] }): Welded {
   let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity;
-  for (let k = 0; k < cornerCount * 3; k += 3) {
-    const x = t[k], y = t[k + 1], z = t[k + 2];
-    if (x < minX) minX = x;
-    if (x > maxX) maxX = x;
-    if (y < minY) minY = y;
-    if (y > maxY) maxY = y;
-    if (z < minZ) minZ = z;
-    if (z > maxZ) maxZ = z;
+  if (bbox) {
+    [minX, minY, minZ] = bbox.minMm;
+    [maxX, maxY, maxZ] = bbox.maxMm;
+  } else {
+    for (let k = 0; k < cornerCount * 3; k += 3) {
+      const x = t[k], y = t[k + 1], z = t[k + 2];
+      if (x < minX) minX = x;
+      if (x > maxX) maxX = x;
+      if (y < minY) minY = y;
+      if (y > maxY) maxY = y;
+      if (z < minZ) minZ = z;
+      if (z > maxZ) maxZ = z;
+    }
   }
   const extent = Math.max(maxX - minX, maxY - minY, maxZ - minZ);
   // Finest grid that fits 26 bits; a caller's tolerance may only make it coarser.
@@ -188,10 +196,12 @@ function weld(t: ArrayLike<number>, cornerCount: number, weldToleranceMm: number
 export function findMeshClosureProblems(
   t: ArrayLike<number>,
   options: MeshClosureOptions = {},
+  /** The vertices' bounding box when the caller has it already (saves a pass). */
+  bbox?: { minMm: number[]; maxMm: number[] },
 ): { report: MeshClosureReport; problems: MeshClosureProblems | null } {
   const triCount = Math.floor(t.length / 9);
   if (triCount * 3 >= Q_SCALE - 1) throw new Error(`Mesh of ${triCount} triangles: more than the ${Math.floor((Q_SCALE - 2) / 3)} the closure check can index.`);
-  const { vertexOfCorner, vertexFirstCorner, vertexCount } = weld(t, triCount * 3, options.weldToleranceMm);
+  const { vertexOfCorner, vertexFirstCorner, vertexCount } = weld(t, triCount * 3, options.weldToleranceMm, bbox);
 
   // Step 2: per-vertex adjacency (CSR). deg[v] = non-degenerate triangles at v.
   const start = new Int32Array(vertexCount + 1);

@@ -86,7 +86,7 @@ export function meshMassProperties(
   }
 
   // Closure before integration: a mesh with a hole has no enclosed volume to speak of.
-  const closure = findMeshClosureProblems(t, options);
+  const closure = findMeshClosureProblems(t, options, { minMm: [minX, minY, minZ], maxMm: [maxX, maxY, maxZ] });
   if (closure.problems) {
     const p = closure.problems;
     const f = p.first;

@@ -205,6 +205,21 @@ describe('meshMassProperties: invariants and an independent formula', () => {
     expect(meshMassProperties(mid, 1000).volumeMm3).toBeCloseTo(1e6, 6);
   });
 
+  it('welds corners a caller-given tolerance apart, and only then', () => {
+    // One copy of the corner (10, 20, 30) written as (10.001, 20, 30): an open crack of 1 µm by default.
+    const t = cuboid(10, 20, 30);
+    let moved = false;
+    const cracked = t.map((v, i) => {
+      if (!moved && i % 3 === 0 && v === 10 && t[i + 1] === 20 && t[i + 2] === 30) {
+        moved = true;
+        return 10.001;
+      }
+      return v;
+    });
+    expect(() => meshMassProperties(cracked, 1000)).toThrow(/open edges/);
+    expect(meshMassProperties(cracked, 1000, { weldToleranceMm: 0.01 }).volumeMm3).toBeCloseTo(6000, 1);
+  });
+
   it('takes Float32Array and number[] alike', () => {
     const t = cuboid(10, 20, 30, [1, 2, 3]);
     expect(meshMassProperties(Float32Array.from(t), 1000).volumeMm3).toBeCloseTo(6000, 6);
