@@ -13,7 +13,9 @@ describe('sign-in', () => {
     const agent = await t.signIn('planner');
     const me = await agent.get('/api/auth/me').expect(200);
     expect(me.body.user.email).toBe('planner@ballast.example');
-    expect(me.body.user.memberships.map((m: { role: string }) => m.role)).toEqual(['planner', 'planner']);
+    const names = me.body.user.memberships.map((m: { productionName: string; role: string }) => `${m.productionName}: ${m.role}`);
+    expect(names).toContain('Orrery Seven — European and Canadian tour: planner');
+    expect(names).toContain('Orrery Seven — workshop rebuild: planner');
   });
 
   it('sets an httpOnly, SameSite=Lax session cookie', async () => {
