@@ -51,7 +51,7 @@ const outDir = mkdtempSync(join(tmpdir(), 'ballast-vitest-'));
 const report = join(outDir, 'report.json');
 const projects = built ? [] : ['--project', 'domain', '--project', 'server', '--project', 'client'];
 const before = stepFailures;
-step('tests', [bin('vitest/vitest.mjs'), 'run', ...projects, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra]);
+const testsOk = step('tests', [bin('vitest/vitest.mjs'), 'run', ...projects, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra]);
 // The test step's own failure is counted test by test from its report below, not twice.
 if (existsSync(report)) stepFailures = before;
 
@@ -63,6 +63,11 @@ if (existsSync(report)) {
   failed = r.numFailedTests;
   // A file that fails to load has no tests but is still a failure.
   failed += r.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
+  // The runner failed for another reason (an unhandled error, a teardown that threw): count it.
+  if (!testsOk && failed === 0) {
+    log('the test runner exited with an error although every test passed (see "Unhandled" above)');
+    failed++;
+  }
 } else {
   failed++;
 }
