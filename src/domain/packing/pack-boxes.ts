@@ -1,4 +1,4 @@
-import { forEachItem } from './blocks.ts';
+import { forEachItem, MAX_PAIRS } from './blocks.ts';
 import { prepareInput } from './prepare.ts';
 import { BeamSearch, placedInOrder } from './search.ts';
 import { Solver, type State } from './solver.ts';
@@ -84,6 +84,8 @@ export async function packBoxes(container: PackContainer, items: PackItem[], opt
     groups: prep.groups,
     fullSupport: options?.fullSupport ?? true,
     generalBlocks: options?.mixedBlocks,
+    // Set-up work in proportion to a short time budget (a function of the options, so still deterministic).
+    maxPairs: options?.timeLimitMs !== undefined ? Math.round(Math.min(MAX_PAIRS, Math.max(20_000, options.timeLimitMs * 250))) : MAX_PAIRS,
   });
   const search = await runSearch(solver, options, start);
   const best = search.best;

@@ -37,6 +37,8 @@ export interface SolverConfig {
   types: SolverType[];
   groups: number;
   fullSupport: boolean;
+  /** Work limit on block pairs examined for general blocks (default MAX_PAIRS). */
+  maxPairs?: number;
   /** Build general (mixed) blocks; default: when lines are small (see GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE). */
   generalBlocks?: boolean;
 }
@@ -108,7 +110,7 @@ export class Solver {
     // lines, their up-to-2 % gaps cost more than they give (measured on BR samples at equal iterations).
     const itemsPerLine = cfg.types.reduce((n, t) => n + t.count, 0) / Math.max(1, cfg.types.length);
     const general = cfg.generalBlocks ?? itemsPerLine < GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE[cfg.fullSupport ? 'fullSupport' : 'unsupported'];
-    this.blocks = buildBlocks(cfg.types, cfg.L, cfg.W, cfg.H, cfg.payloadKg, { fullSupport: cfg.fullSupport, general });
+    this.blocks = buildBlocks(cfg.types, cfg.L, cfg.W, cfg.H, cfg.payloadKg, { fullSupport: cfg.fullSupport, general, maxPairs: cfg.maxPairs });
     this.hasLimits = cfg.types.some((t) => Number.isFinite(t.maxLoadOnTopKg));
     this.typeGroup = Int32Array.from(cfg.types.map((t) => t.group));
   }

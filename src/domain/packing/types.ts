@@ -72,7 +72,7 @@ export interface PackOptions {
   fullSupport?: boolean;
   /**
    * Let one search step place a block of items from different lines (side by side or stacked, filling at
-   * least 98 % of its box). Default: automatic (on when lines hold few items on average).
+   * least 98 % of its box, 95 % with full support). Default: automatic (on when lines hold few items on average).
    */
   mixedBlocks?: boolean;
   /** Called now and then with the share of the budget used (0..1) and the best volume utilisation so far (0..1). */
