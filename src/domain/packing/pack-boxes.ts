@@ -16,7 +16,7 @@ export async function runSearch(solver: Solver, options: PackOptions | undefined
   const timeLimit = options?.timeLimitMs ?? (options?.maxIterations === undefined ? DEFAULT_TIME_LIMIT_MS : Infinity);
   const deadline = startMs + timeLimit;
   const volume = solver.cfg.L * solver.cfg.W * solver.cfg.H;
-  const search = new BeamSearch(solver);
+  const search = new BeamSearch(solver, options?.seed ?? 1);
   const report = (f: number) => options?.onProgress?.(Math.min(1, f), search.best.volume / volume);
   const fraction = () => Math.max(Number.isFinite(timeLimit) ? (now() - startMs) / timeLimit : 0, search.iterations / maxIterations);
   report(fraction());

@@ -1,9 +1,11 @@
+import { seededRandom } from './rng.ts';
 import type { Solver, PlacedNode, State } from './solver.ts';
 
 /**
  * Anytime beam search over the block-building greedy (see solver.ts). `run()` is a generator that yields
  * after every greedy completion (one "iteration"), so the caller can stop it at a time or iteration limit
- * and still hold the best complete packing seen so far in `best`.
+ * and still hold the best complete packing seen so far in `best`. Between beam rounds it runs a few
+ * randomised greedy completions driven by the seed.
  */
 export class BeamSearch {
   readonly solver: Solver;
@@ -12,8 +14,11 @@ export class BeamSearch {
   /** Beam width of the round in progress. */
   width = 1;
 
-  constructor(solver: Solver) {
+  private readonly random: () => number;
+
+  constructor(solver: Solver, seed = 1) {
     this.solver = solver;
+    this.random = seededRandom(seed);
     const g = solver.root();
     solver.greedy(g);
     this.best = g;
@@ -58,6 +63,14 @@ export class BeamSearch {
         }
         children.sort((a, b) => b.v - a.v);
         beam = children.slice(0, w).map((c) => c.s);
+      }
+      // Between rounds, a few randomised greedy runs from the start (the seed's only use).
+      for (let r = 0; r < w; r++) {
+        const g = solver.root();
+        solver.greedy(g, this.random);
+        this.iterations++;
+        this.record(g);
+        yield;
       }
     }
   }

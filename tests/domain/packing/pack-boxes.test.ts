@@ -205,6 +205,16 @@ describe('packBoxes: search behaviour', () => {
     expect(b).toEqual(a);
   });
 
+  it('runs with other seeds and short time limits, always valid', async () => {
+    for (const seed of [2, 99]) {
+      const r = await packBoxes(c, items, { seed, maxIterations: 120 });
+      expectValid(c, items, r);
+    }
+    const quick = await packBoxes(c, items, { timeLimitMs: 30 });
+    expectValid(c, items, quick);
+    expect(quick.placements.length).toBeGreaterThan(0);
+  });
+
   it('improves on its first answer and reports progress', async () => {
     const seen: [number, number][] = [];
     const r = await packBoxes(c, items, { maxIterations: 400, onProgress: (f, u) => seen.push([f, u]) });
