@@ -9,7 +9,7 @@
  * --full runs all 100 instances per class (and 3D-BPP at 2 s per instance).
  */
 import { Worker } from 'node:worker_threads';
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { readFileSync } from 'node:fs';
 import type { Job, JobResult } from './packing-worker.ts';
 
@@ -45,6 +45,8 @@ jobs.sort((a, b) => b.budgetMs - a.budgetMs);
 const total = jobs.length;
 const cpuS = jobs.reduce((s, j) => s + j.budgetMs, 0) / 1000;
 console.log(`Ballast packing benchmark: ${total} runs, ~${Math.round(cpuS / workers / 60)} min on ${workers} worker(s)`);
+// Budgets are wall-clock: other load on the machine lowers the figures. Say how busy it was.
+const load0 = loadavg()[0];
 
 const results: JobResult[] = [];
 await new Promise<void>((resolve, reject) => {
@@ -81,6 +83,7 @@ await new Promise<void>((resolve, reject) => {
   }
 });
 
+console.log(`Machine load average (1 min) at start ${load0.toFixed(1)}, at end ${loadavg()[0].toFixed(1)}, on ${availableParallelism()} cores`);
 const pct = (v: number) => `${(100 * v).toFixed(2)} %`;
 const mean = (xs: number[]) => xs.reduce((s, x) => s + x, 0) / Math.max(1, xs.length);
 
