@@ -193,7 +193,9 @@ describe('check-in and check-out', () => {
 
 describe('manifest and e-mail', () => {
   it('the manifest lists the crates in unloading order with totals and access results; CSV is spreadsheet-safe', async () => {
+    await t.db('hanging_points').insert({ production_id: ids.productionId, venue_id: ids.ownVenueId, label: 'upstage beam', rating_kg: 500 });
     const m = (await venue.get(`${tour()}/engagements/${ownEngagement.id}/manifest`).expect(200)).body.manifest;
+    expect(m.hangingPoints).toEqual([expect.objectContaining({ label: 'upstage beam', ratingKg: 500 })]);
     expect(m.crates.map((c: { code: string }) => c.code)).toEqual(['BQ1', 'DC', 'PC']);
     expect(m.totals).toMatchObject({ crateCount: 3, grossKg: null, knownGrossKg: 830, unknownMassCount: 1 });
     expect(m.crates[1].access.verdict).toBe('fail');

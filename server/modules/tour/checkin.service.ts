@@ -147,7 +147,7 @@ export function checkInService(db: Knex) {
         .filter((id) => byId.has(id))
         .map((id) => {
           const c = byId.get(id)!;
-          return { crateId: id, code: c.code, name: c.name, grossKg: c.grossKg, in: scanOf(id, 'in'), out: scanOf(id, 'out'), onNextLeg: nextCrates.has(id) };
+          return { crateId: id, code: c.code, name: c.name, grossKg: c.grossKg, in: scanOf(id, 'in'), out: scanOf(id, 'out'), expected: expectedIds.includes(id), onNextLeg: nextCrates.has(id) };
         });
       const expectedRows = rows.filter((r) => expectedIds.includes(r.crateId));
       const summarise = (dir: 'in' | 'out', list: ExpectedCrateView[]): CheckSummary => ({

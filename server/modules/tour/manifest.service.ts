@@ -61,7 +61,7 @@ export async function buildManifest(db: Knex, productionId: string, engagementId
     loadLegs(db, productionId),
     loadCrates(db, productionId),
     matrixInputs(db, productionId, { sections: false, engagementIds: [engagementId] }),
-    db('venue_hanging_points').where({ venue_id: engagement.venueId }).orderBy('name'),
+    db('hanging_points').where({ venue_id: engagement.venueId }).orderBy('label'),
   ]);
   const leg = legs.find((l) => l.toEngagementId === engagementId) ?? null;
   const notes: string[] = [];
@@ -119,15 +119,11 @@ export async function buildManifest(db: Knex, productionId: string, engagementId
       fail: view.counts.fail,
       unknown: view.counts.unknown,
     },
-    hangingPoints: hangingRows.map((r: { id: string; venue_id: string; name: string; wll_kg: number | null; height_mm: number | null; location: string; notes: string; version: number }) => ({
+    hangingPoints: hangingRows.map((r: { id: string; label: string; rating_kg: number | null; notes: string }) => ({
       id: r.id,
-      venueId: r.venue_id,
-      name: r.name,
-      wllKg: r.wll_kg === null ? null : Number(r.wll_kg),
-      heightMm: r.height_mm === null ? null : Number(r.height_mm),
-      location: r.location,
+      label: r.label,
+      ratingKg: r.rating_kg === null ? null : Number(r.rating_kg),
       notes: r.notes,
-      version: r.version,
     })),
     liftPlans: [],
     notes,

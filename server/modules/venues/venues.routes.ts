@@ -1,50 +1,18 @@
 import type { Request } from 'express';
-import {
-  createVenueBody,
-  hangingPointBody,
-  updateHangingPointBody,
-  updateVenueBody,
-  type CreateVenueBody,
-  type HangingPointBody,
-  type HangingPointView,
-  type UpdateHangingPointBody,
-  type UpdateVenueBody,
-} from '../../../src/domain/contracts/tour.ts';
+import { createVenueBody, updateVenueBody, type CreateVenueBody, type UpdateVenueBody } from '../../../src/domain/contracts/tour.ts';
 import { can, route, uuidParam, type RouteDef } from '../../http/routes.ts';
-import { AppError, invalid, notFound } from '../../http/errors.ts';
+import { AppError, notFound } from '../../http/errors.ts';
 import { updateVersioned } from '../../http/versioned.ts';
 import type { AppDeps } from '../../app.ts';
 import { pgCode, productionOf, requireVenueScope, toVenueView, venueScopeOf, type VenueRow } from '../tour/tour.repository.ts';
 import { crateRow, runMatrix, sectionRows, vehicleOptions, venueForCore } from '../tour/access.service.ts';
 import { loadCrates } from '../tour/tour.repository.ts';
 
-interface HangingPointRow {
-  id: string;
-  venue_id: string;
-  name: string;
-  wll_kg: number | null;
-  height_mm: number | null;
-  location: string;
-  notes: string;
-  version: number;
-}
-
-const toHangingPointView = (r: HangingPointRow): HangingPointView => ({
-  id: r.id,
-  venueId: r.venue_id,
-  name: r.name,
-  wllKg: r.wll_kg === null ? null : Number(r.wll_kg),
-  heightMm: r.height_mm === null ? null : Number(r.height_mm),
-  location: r.location,
-  notes: r.notes,
-  version: r.version,
-});
-
 /**
- * Venues of a production under `/api/productions/:productionId/venues`: their access data, contacts and
- * hanging points. Planners create and edit every venue; venue staff read and edit their own venues only
- * (the policy's venue scope, checked once the venue is known), and another venue's id gets 403 whether it
- * exists or not.
+ * Venues of a production under `/api/productions/:productionId/venues`: their access data and contacts
+ * (hanging points are kept by the lifting module, under /lifting/hanging-points). Planners create and edit
+ * every venue; venue staff read and edit their own venues only (the policy's venue scope, checked once the
+ * venue is known), and another venue's id gets 403 whether it exists or not.
  */
 export function venueRoutes(deps: AppDeps): RouteDef[] {
   const { db } = deps;
@@ -162,71 +130,5 @@ export function venueRoutes(deps: AppDeps): RouteDef[] {
       },
     }),
 
-    // ---------------------------------------------------------------------------- hanging points
-    route({
-      method: 'get',
-      path: '/:venueId/hanging-points',
-      access: can('venue.read'),
-      async handler(req) {
-        const venue = await loadVenue(req, 'venue.read');
-        const rows = (await db('venue_hanging_points').where({ venue_id: venue.id }).orderBy('name')) as HangingPointRow[];
-        return { hangingPoints: rows.map(toHangingPointView) };
-      },
-    }),
-    route({
-      method: 'post',
-      path: '/:venueId/hanging-points',
-      access: can('venue.edit'),
-      body: hangingPointBody,
-      async handler(req, res) {
-        const venue = await loadVenue(req, 'venue.edit');
-        const b = req.body as HangingPointBody;
-        try {
-          const [row] = await db('venue_hanging_points')
-            .insert({ production_id: venue.production_id, venue_id: venue.id, name: b.name, wll_kg: b.wllKg, height_mm: b.heightMm, location: b.location, notes: b.notes })
-            .returning('*');
-          res.status(201).json({ hangingPoint: toHangingPointView(row) });
-        } catch (err) {
-          if (pgCode(err) === '23505') throw invalid(`A hanging point named "${b.name}" exists already at ${venue.name}.`, [{ path: 'name', message: 'Already used at this venue.' }]);
-          throw err;
-        }
-      },
-    }),
-    route({
-      method: 'patch',
-      path: '/:venueId/hanging-points/:pointId',
-      access: can('venue.edit'),
-      body: updateHangingPointBody,
-      async handler(req) {
-        const venue = await loadVenue(req, 'venue.edit');
-        const b = req.body as UpdateHangingPointBody;
-        const changes: Record<string, unknown> = {};
-        if (b.name !== undefined) changes.name = b.name;
-        if (b.wllKg !== undefined) changes.wll_kg = b.wllKg;
-        if (b.heightMm !== undefined) changes.height_mm = b.heightMm;
-        if (b.location !== undefined) changes.location = b.location;
-        if (b.notes !== undefined) changes.notes = b.notes;
-        const row = await updateVersioned<HangingPointRow>(
-          db,
-          'venue_hanging_points',
-          { id: uuidParam(req, 'pointId'), venue_id: venue.id },
-          b.version,
-          changes,
-          'The hanging point',
-          toHangingPointView,
-        );
-        return { hangingPoint: toHangingPointView(row) };
-      },
-    }),
-    route({
-      method: 'delete',
-      path: '/:venueId/hanging-points/:pointId',
-      access: can('venue.edit'),
-      async handler(req) {
-        const venue = await loadVenue(req, 'venue.edit');
-        const n = await db('venue_hanging_points').where({ id: uuidParam(req, 'pointId'), venue_id: venue.id }).delete();
-        if (!n) throw notFound('The hanging point');
-      },
-    }),
   ];
 }

@@ -83,27 +83,13 @@ export interface VenueView {
   updatedAt: string;
 }
 
-export const hangingPointBody = z.object({
-  name: text(120).min(1, 'Name the hanging point.'),
-  /** Working load limit, kg; null while the venue has not given it (no plan may count on it). */
-  wllKg: z.number().positive().max(100_000).nullable().default(null),
-  heightMm: z.number().positive().max(100_000).nullable().default(null),
-  location: text(500).default(''),
-  notes: text(2000).default(''),
-});
-export const updateHangingPointBody = hangingPointBody.partial().extend(versioned.shape);
-export type HangingPointBody = z.infer<typeof hangingPointBody>;
-export type UpdateHangingPointBody = z.infer<typeof updateHangingPointBody>;
-
+/** A venue's hanging point as the manifest lists it (kept by the lifting module). */
 export interface HangingPointView {
   id: string;
-  venueId: string;
-  name: string;
-  wllKg: number | null;
-  heightMm: number | null;
-  location: string;
+  label: string;
+  /** Rating, kg; null while the venue has not given it (no plan may count on it). */
+  ratingKg: number | null;
   notes: string;
-  version: number;
 }
 
 // --------------------------------------------------------------------------------------------- tour
@@ -337,6 +323,8 @@ export interface ExpectedCrateView {
   /** The latest scan in each direction, or null. */
   in: { scanId: string; state: 'arrived' | 'damaged' | 'missing'; scannedAt: string; by: string | null; photoCount: number } | null;
   out: { scanId: string; state: 'arrived' | 'damaged' | 'missing'; scannedAt: string; by: string | null; photoCount: number } | null;
+  /** On the leg that delivers to this engagement (false: checked in here without being expected). */
+  expected: boolean;
   /** On the leg that leaves this engagement next. */
   onNextLeg: boolean;
 }
@@ -357,4 +345,26 @@ export interface CheckStatusView {
   summary: { in: CheckSummary; out: CheckSummary };
   /** Crates that missed this venue (or were not loaded out) and are due on the next leg. */
   flags: { crateId: string; code: string; message: string }[];
+}
+
+// ------------------------------------------------------------------------------------- crate labels
+
+/**
+ * What a crate label's QR code holds: the crate's address in the app at the production's public address
+ * (APP_URL), `<APP_URL>/p/<productionId>/crates/<crateId>`, so a phone camera outside Ballast opens the
+ * crate, and check-in can tell the production and the crate from it. Labels make the text with
+ * `crateQrText`; check-in reads it with `parseCrateQr` (the server decides; the phone uses it to answer at
+ * once, offline too).
+ */
+export function crateQrText(appUrl: string, productionId: string, crateId: string): string {
+  return `${appUrl.replace(/\/+$/, '')}/p/${productionId}/crates/${crateId}`;
+}
+
+const UUID_RE = '[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}';
+const CRATE_QR_RE = new RegExp(`/p/(${UUID_RE})/crates/(${UUID_RE})(?:[/?#]|$)`, 'i');
+
+/** The production and crate named by a label's QR text, or null when it is not a Ballast crate label. */
+export function parseCrateQr(text: string): { productionId: string; crateId: string } | null {
+  const m = CRATE_QR_RE.exec(text.trim());
+  return m ? { productionId: m[1].toLowerCase(), crateId: m[2].toLowerCase() } : null;
 }
