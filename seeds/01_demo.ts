@@ -3,6 +3,7 @@ import { hashPassword } from '../server/security/passwords.ts';
 import { seedDemoMachine } from '../server/modules/machine/demo-machine.ts';
 import { seedDemoLifting } from '../server/modules/lifting/demo-lifting.ts';
 import { seedDemoCrates } from '../server/modules/crates/demo-crates.ts';
+import { seedDemoTour } from '../server/modules/tour/demo-tour.ts';
 
 /**
  * The demo scenario (an invented touring mechanical orrery and eight invented venues). It is
@@ -66,5 +67,7 @@ export async function seed(knex: Knex): Promise<void> {
     await seedDemoLifting(trx, tour.id, { plannerId: plannerRow.id, venueIds: new Map(venues.map((v) => [v.name as string, v.id as string])) });
     // Its crates, vehicles and a first packed leg.
     await seedDemoCrates(trx, tour.id);
+    // The tour: venue access data and contacts, eight engagements with their legs, Kelderwerf's check-in.
+    await seedDemoTour(trx, tour.id);
   });
 }
