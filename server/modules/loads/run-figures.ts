@@ -77,13 +77,17 @@ export function runFigures(
   const perVehicle: VehicleFiguresView[] = vehicles.map((v) => {
     const mine = placements.filter((p) => p.vehicleId === v.id);
     const load: PointMass[] = [];
+    const crateCogs: { id: string; cogMm: Vec3 }[] = [];
     let volume = 0;
     let floor = 0;
     for (const p of mine) {
       const it = byId.get(p.id);
       volume += p.lengthMm * p.widthMm * p.heightMm;
       if (p.zMm <= EPS_MM) floor += p.lengthMm * p.widthMm;
-      if (it && it.massKg > 0) load.push({ massKg: it.massKg, cogMm: placedCogMm(it, p) });
+      if (!it) continue;
+      const cogMm = placedCogMm(it, p);
+      crateCogs.push({ id: p.id, cogMm });
+      if (it.massKg > 0) load.push({ massKg: it.massKg, cogMm });
     }
     const loadKg = load.reduce((s, m) => s + m.massKg, 0);
     const cog = load.length > 0 ? (combineMasses(load).cogMm as Vec3) : null;
@@ -103,6 +107,7 @@ export function runFigures(
       loadPlan: plan as unknown as VehicleFiguresView['loadPlan'],
       validation,
       loadingMetres: road?.loadingMetres ?? 0,
+      crateCogs,
     };
   });
 

@@ -299,6 +299,8 @@ export const vehicleFiguresView = z.object({
   loadPlan: z.object({ ok: z.boolean(), reasons: z.array(z.string()) }).passthrough(),
   validation: validationView,
   loadingMetres: z.number(),
+  /** Each placed crate's CoG in the load space, mm (its own CoG turned as the crate was placed). */
+  crateCogs: z.array(z.object({ id: z.string(), cogMm: vec3Mm })).default([]),
 });
 export type VehicleFiguresView = z.infer<typeof vehicleFiguresView>;
 
