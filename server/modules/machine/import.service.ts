@@ -230,7 +230,7 @@ export async function rememberMapping(db: Knex, machine: MachineRow, options: Br
     .update({ import_mapping: json({ mapping: options.mapping, units: options.units, decimalSeparator: options.decimalSeparator ?? '.', allowNewAssemblies: options.allowNewAssemblies ?? false }) });
 }
 
-const CHUNK = 1000;
+const CHUNK = 2500;
 
 /**
  * Applies a validated import in one transaction: new assemblies, added lines, changed lines (only the
