@@ -5,8 +5,9 @@ import {
   gearIdsOf,
   liftPlanFields,
   type LiftLoadView,
+  type LiftPlanSummary,
+  type LiftPlanView,
   type LiftPlanFields,
-  type PlanEventView,
 } from '../../../src/domain/contracts/lifting-api.ts';
 import type { GearItem, LiftPlanInput } from '../../../src/domain/contracts/lifting.ts';
 import type { LiftPlanResult } from '../../../src/domain/lifting/index.ts';
@@ -146,35 +147,8 @@ export async function refreshPlansUsingGear(db: Knex, productionId: string, gear
   }
 }
 
-export interface PlanSummary {
-  id: string;
-  title: string;
-  status: PlanRow['status'];
-  sectionId: string | null;
-  sectionCode: string | null;
-  venueId: string | null;
-  verdict: PlanRow['verdict'];
-  problemCount: number;
-  authorId: string | null;
-  authorName: string | null;
-  liftDate: string;
-  version: number;
-  updatedAt: string;
-}
-
-export interface PlanView extends Omit<PlanSummary, 'problemCount'> {
-  inputs: LiftPlanFields;
-  evaluatedInput: LiftPlanInput;
-  result: LiftPlanResult;
-  load: LiftLoadView | null;
-  reviewerId: string | null;
-  reviewerName: string | null;
-  reviewedAt: string | null;
-  reviewComment: string;
-  submittedAt: string | null;
-  createdAt: string;
-  events: PlanEventView[];
-}
+export type PlanSummary = LiftPlanSummary;
+export type PlanView = LiftPlanView;
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 

@@ -223,6 +223,37 @@ export interface PlanEventView {
   createdAt: string;
 }
 
+export interface LiftPlanSummary {
+  id: string;
+  title: string;
+  status: LiftPlanStatus;
+  sectionId: string | null;
+  sectionCode: string | null;
+  venueId: string | null;
+  verdict: LiftPlanResult['verdict'];
+  problemCount: number;
+  authorId: string | null;
+  authorName: string | null;
+  liftDate: string;
+  version: number;
+  updatedAt: string;
+}
+
+/** A lift plan with its inputs, what the core was given, its answer, the sign-off and the history. */
+export interface LiftPlanView extends Omit<LiftPlanSummary, 'problemCount'> {
+  inputs: LiftPlanFields;
+  evaluatedInput: LiftPlanInput;
+  result: LiftPlanResult;
+  load: LiftLoadView | null;
+  reviewerId: string | null;
+  reviewerName: string | null;
+  reviewedAt: string | null;
+  reviewComment: string;
+  submittedAt: string | null;
+  createdAt: string;
+  events: PlanEventView[];
+}
+
 // ------------------------------------------------------------------------------------------ building the core's input
 
 export interface BuildContext {
