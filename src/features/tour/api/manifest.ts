@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AccessFindingView, CheckStatusView, EngagementView, HangingPointView, InviteVenueStaffBody, MailingView, SendManifestBody, VenueContact } from '@domain/contracts/tour.ts';
+import type { AccessFindingView, CheckStatusView, EngagementView, HangingPointView, InviteVenueStaffBody, MailingView, ScanView, SendManifestBody, VenueContact } from '@domain/contracts/tour.ts';
 import { api, seg } from '../../../lib/api.ts';
 
 export type { MailingView };
@@ -94,3 +94,16 @@ export function useMailMutations(productionId: string, engagementId: string) {
     }),
   };
 }
+
+/** `GET …/tour/engagements/:engagementId/scans` → every scan, newest first, with its photos. */
+export function scansQueryOptions(productionId: string, engagementId: string) {
+  return queryOptions({
+    queryKey: ['tour', productionId, 'scans', engagementId] as const,
+    queryFn: async () => (await api.get<{ scans: ScanView[] }>(`${base(productionId)}/engagements/${seg(engagementId)}/scans`)).scans,
+  });
+}
+export const useScans = (productionId: string, engagementId: string) => useQuery(scansQueryOptions(productionId, engagementId));
+
+/** The address of a scan's photo, for an image. */
+export const scanPhotoSrc = (productionId: string, engagementId: string, scanId: string, photoId: string) =>
+  `/api${base(productionId)}/engagements/${seg(engagementId)}/scans/${seg(scanId)}/photos/${seg(photoId)}`;

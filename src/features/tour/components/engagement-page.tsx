@@ -6,7 +6,7 @@ import { useCurrentProduction, useMay } from '../../../lib/current-production.ts
 import { apiFieldErrors } from '../../../lib/form-errors.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { useTour, type TourView } from '../api/get-tour.ts';
-import { manifestCsvHref, useEngagementCheck, useMailings, useMailMutations, useManifest } from '../api/manifest.ts';
+import { manifestCsvHref, scanPhotoSrc, useEngagementCheck, useMailings, useMailMutations, useManifest, useScans } from '../api/manifest.ts';
 import { useTourMutations } from '../api/tour-mutations.ts';
 import { VerdictBadge } from './verdict.tsx';
 
@@ -72,7 +72,38 @@ function CheckCard({ productionId, engagementId }: { productionId: string; engag
           </ul>
         </Alert>
       )}
+      <DamageReports productionId={productionId} engagementId={engagementId} />
     </Card>
+  );
+}
+
+/** Damaged and missing crates as reported, with who, when, the note and the photos. */
+function DamageReports({ productionId, engagementId }: { productionId: string; engagementId: string }) {
+  const scans = useScans(productionId, engagementId);
+  const reports = (scans.data ?? []).filter((s) => s.state !== 'arrived');
+  if (reports.length === 0) return null;
+  return (
+    <section aria-label="Damage and missing reports" className="mt-4">
+      <h3 className="mb-2 font-semibold text-ink-900">Reports</h3>
+      <ul className="flex flex-col gap-2">
+        {reports.map((s) => (
+          <li key={s.id} className="rounded-control border border-ink-200 px-3 py-2 text-sm">
+            <span className="font-semibold">{s.crateCode}</span> {s.state} at {s.direction === 'in' ? 'check-in' : 'load-out'} · {new Date(s.scannedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}
+            {s.scannedByName ? ` by ${s.scannedByName}` : ''}
+            {s.note && <span className="block text-ink-700">{s.note}</span>}
+            {s.photos.length > 0 && (
+              <span className="mt-1 flex flex-wrap gap-2">
+                {s.photos.map((p) => (
+                  <a key={p.id} href={scanPhotoSrc(productionId, engagementId, s.id, p.id)} target="_blank" rel="noreferrer">
+                    <img src={scanPhotoSrc(productionId, engagementId, s.id, p.id)} alt={`Damage to ${s.crateCode}: ${p.filename}`} className="h-20 w-20 rounded-control object-cover" loading="lazy" />
+                  </a>
+                ))}
+              </span>
+            )}
+          </li>
+        ))}
+      </ul>
+    </section>
   );
 }
 
