@@ -27,7 +27,7 @@ import { loadsOnTopKg, type MassBox } from './stack-load.ts';
  * Mixed (general) blocks are built when lines hold fewer items than this on average (without / with
  * full support). With full support, mixed blocks have flat tops and so help up to larger lines.
  */
-export const GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE = { unsupported: 5, fullSupport: 8 };
+export const GENERAL_BLOCKS_BELOW_ITEMS_PER_LINE = { unsupported: 5, fullSupport: 6 };
 
 export interface SolverConfig {
   L: number;
@@ -352,6 +352,24 @@ export class Solver {
   }
 
   private loadsOk(s: State, b: number, x: number, y: number, z: number): boolean {
+    // Only blocks under the new one (through any chain of contact) take its weight. If none of them has a
+    // load limit, nothing can break; skip the full recomputation, which is quadratic in the item count.
+    const B = this.blocks;
+    const under: PlacedNode[] = [];
+    const frontier: [number, number, number, number, number][] = [[x, y, x + B.dx[b], y + B.dy[b], z]];
+    let limited = false;
+    while (frontier.length > 0 && !limited) {
+      const [fx0, fy0, fx1, fy1, fz] = frontier.pop()!;
+      for (let p = s.placed; p; p = p.prev) {
+        if (Math.abs(p.z1 - fz) > EPS_MM || p.x1 <= fx0 + EPS_MM || p.x0 >= fx1 - EPS_MM || p.y1 <= fy0 + EPS_MM || p.y0 >= fy1 - EPS_MM) continue;
+        if (under.includes(p)) continue;
+        under.push(p);
+        const t = B.type[p.b];
+        if (t >= 0 && Number.isFinite(this.cfg.types[t].maxLoadOnTopKg)) limited = true;
+        frontier.push([p.x0, p.y0, p.x1, p.y1, p.z0]);
+      }
+    }
+    if (!limited) return true;
     const boxes: MassBox[] = [];
     const limits: number[] = [];
     const types = this.cfg.types;
