@@ -142,6 +142,31 @@ describe('packing runs', () => {
     await venue.get(`${base()}/runs`).expect(403);
   });
 
+  it('packs a tour leg from its own vehicles and crates, its unloading order as the stops', async () => {
+    const unknownLeg = await post(planner, '/runs', { name: 'Leg run', legId: randomUUID() }).expect(400);
+    expect(unknownLeg.body.error.issues[0].path).toBe('legId');
+    const leg = await t.db('tour_legs').where({ production_id: pid }).first('id');
+    if (!leg) return; // the tour's demo legs are seeded by the tour module
+    const crates = (await planner.get(`/api/productions/${pid}/crates`).expect(200)).body.crates as { id: string; code: string }[];
+    const vehicles = (await planner.get(`${base()}/vehicles`).expect(200)).body.vehicles as { id: string; code: string }[];
+    const had = await t.db('leg_crates').where({ leg_id: leg.id }).count<{ count: number }[]>('* as count');
+    if (Number(had[0].count) > 0) return; // the tour's own data: leave it alone
+    const pcs = crates.filter((c) => c.code.startsWith('PC')).slice(0, 4);
+    const c40 = vehicles.find((v) => v.code === 'C40')!.id;
+    const added = await t.db('leg_vehicles').insert({ leg_id: leg.id, vehicle_id: c40, sort_order: 0 }).onConflict(['leg_id', 'vehicle_id']).ignore().returning('vehicle_id');
+    await t.db('leg_crates').insert(pcs.map((c, i) => ({ leg_id: leg.id, crate_id: c.id, load_order: i })));
+    try {
+      const res = await post(planner, '/runs', { name: `Leg run ${tag}`, legId: leg.id, timeLimitMs: 500 }).expect(202);
+      expect(res.body.run.legId).toBe(leg.id);
+      expect(res.body.run.input.items.map((i: { stopIndex: number }) => i.stopIndex)).toEqual([0, 1, 2, 3]);
+      const run = await waitForRun(res.body.run.id);
+      expect(run.status).toBe('done');
+    } finally {
+      await t.db('leg_crates').where({ leg_id: leg.id }).whereIn('crate_id', pcs.map((c) => c.id)).delete();
+      if (added.length > 0) await t.db('leg_vehicles').where({ leg_id: leg.id, vehicle_id: c40 }).delete();
+    }
+  });
+
   it('has the demo run of the first leg with its figures', async () => {
     const runs = (await planner.get(`${base()}/runs`).expect(200)).body.runs;
     const demo = runs.find((r: { name: string }) => r.name.startsWith('Leg 1'));

@@ -245,17 +245,30 @@ export function loadRoutes(deps: AppDeps): RouteDef[] {
       body: createPackingRunBody,
       async handler(req, res) {
         const productionId = pid(req);
-        const b = req.body as ReturnType<typeof createPackingRunBody.parse>;
-        const vehicleRows = await db<VehicleRow>('vehicles').where({ production_id: productionId }).whereIn('id', b.vehicleIds);
-        const missingV = b.vehicleIds.filter((id) => !vehicleRows.some((v) => v.id === id));
-        if (missingV.length > 0) throw invalid('Some vehicles are not in this production.', missingV.map((id) => ({ path: `vehicleIds.${b.vehicleIds.indexOf(id)}`, message: `No vehicle ${id}.` })));
-        const crateIds = b.crates.map((c) => c.crateId);
+        const b = { ...(req.body as ReturnType<typeof createPackingRunBody.parse>) };
+        if (b.legId) {
+          // A leg of the tour: its vehicles and crates unless given, its unloading order as the stops.
+          const leg = await db('tour_legs').where({ id: b.legId, production_id: productionId }).first('id');
+          if (!leg) throw invalid('No such leg in this production.', [{ path: 'legId', message: 'Pick a leg of this tour.' }]);
+          if (!b.vehicleIds?.length) b.vehicleIds = (await db('leg_vehicles').where({ leg_id: b.legId }).orderBy('sort_order').select('vehicle_id')).map((r: { vehicle_id: string }) => r.vehicle_id);
+          if (!b.crates?.length) {
+            b.crates = (await db('leg_crates').where({ leg_id: b.legId }).orderBy('load_order').select('crate_id', 'load_order')).map((r: { crate_id: string; load_order: number }) => ({ crateId: r.crate_id, stopIndex: r.load_order }));
+          }
+          if (!b.vehicleIds.length) throw invalid('The leg has no vehicles yet.', [{ path: 'vehicleIds', message: 'Give the leg its vehicles, or pick them here.' }]);
+          if (!b.crates.length) throw invalid('The leg has no crates yet.', [{ path: 'crates', message: 'Give the leg its crates, or pick them here.' }]);
+        }
+        const vehicleIds = b.vehicleIds!;
+        const crateList = b.crates!;
+        const vehicleRows = await db<VehicleRow>('vehicles').where({ production_id: productionId }).whereIn('id', vehicleIds);
+        const missingV = vehicleIds.filter((id) => !vehicleRows.some((v) => v.id === id));
+        if (missingV.length > 0) throw invalid('Some vehicles are not in this production.', missingV.map((id) => ({ path: `vehicleIds.${vehicleIds.indexOf(id)}`, message: `No vehicle ${id}.` })));
+        const crateIds = crateList.map((c) => c.crateId);
         if (new Set(crateIds).size !== crateIds.length) throw invalid('A crate is listed twice.', [{ path: 'crates', message: 'List each crate once.' }]);
         const [settingsRow, crates] = await Promise.all([ensureLoadSettings(db, productionId), loadCrates(db, productionId, crateIds)]);
         const settings = toLoadSettingsView(settingsRow);
         const issues: { path: string; message: string }[] = [];
         const items: RunItemView[] = [];
-        b.crates.forEach((c, i) => {
+        crateList.forEach((c, i) => {
           const found = crates.find((x) => x.crate.id === c.crateId);
           if (!found) return issues.push({ path: `crates.${i}.crateId`, message: `No crate ${c.crateId} in this production.` });
           const v = toCrateView(found.crate, found.contents, settings);
@@ -278,7 +291,7 @@ export function loadRoutes(deps: AppDeps): RouteDef[] {
         });
         if (issues.length > 0) throw invalid('Some crates cannot be packed.', issues);
         // Keep the vehicles in the order the planner gave: the engine fills them in that order.
-        const vehicles: RunVehicle[] = b.vehicleIds.map((id) => {
+        const vehicles: RunVehicle[] = vehicleIds.map((id) => {
           const r = vehicleRows.find((v) => v.id === id)!;
           return { ...r.spec, id: r.id, name: r.name, code: r.code, vehicleRowId: r.id };
         });

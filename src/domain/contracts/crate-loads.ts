@@ -215,20 +215,30 @@ export type LoadSettingsView = z.infer<typeof loadSettingsView>;
 
 // ---------------------------------------------------------------------------------------------- packing runs
 
-export const createPackingRunBody = z.object({
-  name: z.string().trim().min(1, 'Name the run.').max(120),
-  /** The tour leg the run is for; absent for an ad hoc run. */
-  legId: z.string().uuid().nullable().optional(),
-  vehicleIds: z.array(z.string().uuid()).min(1, 'Pick at least one vehicle.').max(50),
-  /** Crates to load; stopIndex: the stop where the crate comes off (lower = earlier, nearer the doors). */
-  crates: z
-    .array(z.object({ crateId: z.string().uuid(), stopIndex: z.number().int().min(0).max(1000).optional() }))
-    .min(1, 'Pick at least one crate.')
-    .max(2000),
-  timeLimitMs: z.number().int().min(100).max(60_000).default(3000),
-  fullSupport: z.boolean().default(true),
-  seed: z.number().int().min(0).max(2 ** 31).default(1),
-});
+/**
+ * A packing run: for a tour leg (vehicles and crates taken from the leg when not given, the leg's unloading
+ * order as the stops), or ad hoc (vehicles and crates given).
+ */
+export const createPackingRunBody = z
+  .object({
+    name: z.string().trim().min(1, 'Name the run.').max(120),
+    /** The tour leg the run is for; absent for an ad hoc run. */
+    legId: z.string().uuid().nullable().optional(),
+    vehicleIds: z.array(z.string().uuid()).max(50).optional(),
+    /** Crates to load; stopIndex: the stop where the crate comes off (lower = earlier, nearer the doors). */
+    crates: z
+      .array(z.object({ crateId: z.string().uuid(), stopIndex: z.number().int().min(0).max(1000).optional() }))
+      .max(2000)
+      .optional(),
+    timeLimitMs: z.number().int().min(100).max(60_000).default(3000),
+    fullSupport: z.boolean().default(true),
+    seed: z.number().int().min(0).max(2 ** 31).default(1),
+  })
+  .superRefine((b, ctx) => {
+    if (b.legId) return;
+    if (!b.vehicleIds?.length) ctx.addIssue({ code: 'custom', message: 'Pick at least one vehicle.', path: ['vehicleIds'] });
+    if (!b.crates?.length) ctx.addIssue({ code: 'custom', message: 'Pick at least one crate.', path: ['crates'] });
+  });
 export type CreatePackingRunBody = z.input<typeof createPackingRunBody>;
 
 export const placementView = z.object({
