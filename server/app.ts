@@ -14,6 +14,7 @@ import type { Config } from './config/env.ts';
 import type { Mailer } from './mail/mailer.ts';
 import { AppError, errorHandler } from './http/errors.ts';
 import { mountRoutes, type RouteDef } from './http/routes.ts';
+import { jsonGuard } from './http/json-guard.ts';
 import { createPassport, loadActor } from './modules/auth/passport.ts';
 import { createSignInLimiter, type SignInLimiter } from './modules/auth/sign-in-limiter.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
@@ -111,6 +112,7 @@ export function createApp(base: BaseDeps): express.Express {
     }),
   );
   app.use(express.json({ limit: '1mb' }));
+  app.use(jsonGuard);
 
   const PgStore = connectPgSimple(session);
   app.use(

@@ -57,6 +57,32 @@ function isDatabaseUnavailable(err: unknown): boolean {
   return /Knex: Timeout acquiring a connection|Connection terminated|connection timeout|the database system is (starting|shutting) up/i.test(e.message ?? '');
 }
 
+/** body-parser and router errors that carry a 4xx status meant for the client (unsupported charset, bad encoding, an undecodable path). */
+function isClientHttpError(err: unknown): err is { status: number; message: string; expose?: boolean } {
+  const e = err as { status?: unknown; expose?: unknown };
+  return !!e && typeof e.status === 'number' && e.status >= 400 && e.status < 500 && e.expose !== false;
+}
+
+function fromClientHttpError(err: { status: number; message: string; type?: string }): AppError {
+  if (err.status === 413) return new AppError('too_large', `The request is too large: ${err.message}.`);
+  if (err.status === 415) return new AppError('unsupported_type', `The request's content type or encoding is not accepted: ${err.message}.`);
+  return invalid(`The request could not be read: ${err.message}.`);
+}
+
+/** PostgreSQL's data exceptions (class 22) and integrity violations (class 23). */
+function isPgDataError(err: unknown): err is { code: string; message: string; constraint?: string; column?: string } {
+  const e = err as { code?: unknown; severity?: unknown };
+  return !!e && typeof e.code === 'string' && /^2[23][0-9A-Z]{3}$/.test(e.code) && typeof e.severity === 'string';
+}
+
+function fromPgDataError(err: { code: string; message: string; constraint?: string; column?: string }): AppError {
+  const where = err.column ? ` (field ${err.column})` : err.constraint ? ` (rule ${err.constraint})` : '';
+  if (err.code === '23505') return new AppError('conflict', `This would duplicate an existing record${where}.`, { code: 'duplicate' });
+  if (err.code === '23503') return new AppError('conflict', `This refers to a record that does not exist, or is still referred to by another${where}.`, { code: 'reference' });
+  if (err.code.startsWith('23')) return invalid(`A value breaks a rule of the stored data${where}: ${err.message}.`, undefined, 'constraint');
+  return invalid(`A value in the request cannot be stored${where}: ${err.message}.`, undefined, 'value_not_storable');
+}
+
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let appErr: AppError;
   if (err instanceof AppError) appErr = err;
@@ -64,9 +90,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else if (err?.type === 'entity.too.large') appErr = new AppError('too_large', `The request body is larger than the limit of ${err.limit} bytes.`);
   else if (err?.type === 'entity.parse.failed') appErr = invalid('The request body is not valid JSON.');
   else if (err?.code === 'EBADCSRFTOKEN' || err?.message === 'invalid csrf token') appErr = new AppError('csrf', 'The form expired or the request lacks its security token. Reload and try again.');
+  else if (isClientHttpError(err)) appErr = fromClientHttpError(err);
   else if (isDatabaseUnavailable(err)) {
     appErr = new AppError('unavailable', 'The database is not reachable right now. Try again in a moment.');
     res.setHeader('Retry-After', '5');
+  } else if (isPgDataError(err)) {
+    // A value got past validation that the database refuses: the request is at fault, not the server.
+    // Logged as a warning, because the route's schema should have caught it.
+    req.log?.warn({ err }, 'database refused a value');
+    appErr = fromPgDataError(err);
   } else {
     req.log?.error({ err }, 'unhandled error');
     res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. It has been logged.' } });

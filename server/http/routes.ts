@@ -26,13 +26,49 @@ export interface RouteDef {
   query?: ZodType;
   /** Extra middleware before the handler (e.g. file uploads), after access checks. */
   before?: RequestHandler[];
+  /**
+   * The file this route takes, if any. Optional: an upload middleware in `before` marked with
+   * `declareUpload` is found without it. Tests use it to throw hostile files at every upload.
+   */
+  upload?: UploadInfo;
   handler: (req: Request, res: Response) => unknown;
+}
+
+/** What an upload route accepts: the multipart form field, the size limit and the file name endings. */
+export interface UploadInfo {
+  field: string;
+  maxBytes: number;
+  /** Lower-case endings with the dot, e.g. ['.stl']. */
+  extensions: string[];
+}
+
+/** Where `declareUpload` keeps an upload middleware's rule. */
+const UPLOAD_INFO = Symbol.for('ballast.uploadInfo');
+
+/** Marks an upload middleware with what it accepts, so the route table knows the route takes a file. */
+export function declareUpload<T extends RequestHandler>(middleware: T, info: UploadInfo): T {
+  return Object.assign(middleware, { [UPLOAD_INFO]: { field: info.field, maxBytes: info.maxBytes, extensions: [...info.extensions] } });
+}
+
+function uploadOf(def: RouteDef): UploadInfo | undefined {
+  if (def.upload) return def.upload;
+  for (const mw of def.before ?? []) {
+    const info = (mw as unknown as Record<symbol, UploadInfo | undefined>)[UPLOAD_INFO];
+    if (info) return info;
+  }
+  return undefined;
 }
 
 export interface MountedRoute {
   method: Method;
   path: string;
   access: Access;
+  /** The body schema, when the route declares one (tests generate valid and hostile bodies from it). */
+  body?: ZodType;
+  /** The query schema, when the route declares one. */
+  query?: ZodType;
+  /** The file the route takes, when it takes one. */
+  upload?: UploadInfo;
 }
 
 export const routeTable: MountedRoute[] = [];
@@ -73,7 +109,10 @@ export function mountRoutes(router: Router, base: string, defs: RouteDef[], csrf
     });
     router[def.method](def.path, ...chain);
     const path = base + def.path;
-    if (!routeTable.some((r) => r.method === def.method && r.path === path)) routeTable.push({ method: def.method, path, access: def.access });
+    if (!routeTable.some((r) => r.method === def.method && r.path === path)) {
+      const upload = uploadOf(def);
+      routeTable.push({ method: def.method, path, access: def.access, ...(def.body ? { body: def.body } : {}), ...(def.query ? { query: def.query } : {}), ...(upload ? { upload } : {}) });
+    }
   }
 }
 
