@@ -202,13 +202,18 @@ export class HttpClient {
     return { status: res.status, body: parsed, headers: res.headers, ms: Date.now() - t0 };
   }
 
+  /** The Cookie header this client sends. */
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
   async fetchCsrf(): Promise<void> {
     const r = await this.request('GET', '/api/auth/csrf');
     if (r.status !== 200) throw new Error(`csrf: ${r.status} ${JSON.stringify(r.body)}`);
     this.csrf = r.body.csrfToken;
   }
 
-  async signIn(email: string, password: string): Promise<{ status: number; body: Json }> {
+  async signIn(email: string, password: string): Promise<{ status: number; body: Json; headers?: Headers }> {
     if (!this.csrf) {
       const c = await this.request('GET', '/api/auth/csrf');
       if (c.status !== 200) return c;
