@@ -23,6 +23,8 @@ export const NAV_ITEMS: readonly NavItem[] = [
   //   { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
   //   { label: 'Tour & venues', path: 'tour', action: 'venue.read', scope: 'production' },
   //   { label: 'Check-in', path: 'check-in', action: 'engagement.checkin', scope: 'production' },
+  { label: 'Tour & venues', path: 'tour', action: 'venue.read', scope: 'production' },
+  { label: 'Check-in', path: 'check-in', action: 'engagement.checkin', scope: 'production' },
   { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
   { label: 'Settings', path: 'settings', action: 'production.settings.edit', scope: 'production' },
   { label: 'People', path: '/admin/people', action: 'people.manage', scope: 'company' },
