@@ -46,6 +46,8 @@ export default defineConfig({
           include: ['tests/client/**/*.test.tsx'],
           environment: 'jsdom',
           setupFiles: ['tests/client/setup.ts'],
+          // jsdom renders of whole screens can take seconds on a busy 2-core machine.
+          testTimeout: 20_000,
         },
       },
       {
