@@ -48,6 +48,7 @@ const ROUTES = STATE_CHANGING.filter((r) => !SKIP.has(`${r.method} ${r.path}`));
  */
 const UNDECLARED_UPLOADS: Record<string, UploadInfo> = {
   'post /api/productions/:productionId/machine/lines/:lineId/mesh': { field: 'file', maxBytes: 64 * 1024 * 1024, extensions: ['.stl'] },
+  'post /api/productions/:productionId/tour/engagements/:engagementId/scans/:scanId/photos': { field: 'photo', maxBytes: 8 * 1024 * 1024, extensions: ['.jpg', '.jpeg', '.png', '.webp', '.heic', '.heif'] },
 };
 const uploadOf = (r: MountedRoute): UploadInfo | undefined => r.upload ?? UNDECLARED_UPLOADS[`${r.method} ${r.path}`];
 
