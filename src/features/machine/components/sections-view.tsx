@@ -6,6 +6,7 @@ import { SectionCard } from './section-card.tsx';
 import { MovePanel } from './move-panel.tsx';
 import { WeighingForm } from './weighing-form.tsx';
 import { SectionForm } from './section-form.tsx';
+import { MarginForm } from './margin-form.tsx';
 
 // three.js is large: the 3D view loads only when someone opens it.
 const SectionView3d = lazy(() => import('./section-view-3d.tsx'));
@@ -35,7 +36,8 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
           {mass.gaps.length > 0 && <span className="text-caution-800"> {mass.gaps.length} lines not counted yet (gaps).</span>}
         </p>
         {mayEdit && (
-          <div className="flex flex-wrap gap-2">
+          <div className="flex flex-wrap items-end gap-2">
+            <MarginForm key={summary.machine.version} productionId={productionId} machine={summary.machine} />
             <Button variant="secondary" onClick={() => setAdding((v) => !v)}>
               New section
             </Button>
