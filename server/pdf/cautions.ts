@@ -1,11 +1,12 @@
-import { COLORS, type PdfWriter } from './document.ts';
+import { COLORS, pdfSafe, type PdfWriter } from './document.ts';
 
 /**
  * The cautions block every printout with a lifting verdict carries: a framed box, never split across
  * pages, listing the cautions the core attached to the verdict (pass them in; the wording is the
  * core's, so screens and paper say the same thing).
  */
-export function cautionsBlock(w: PdfWriter, cautions: readonly string[], title = 'Cautions'): void {
+export function cautionsBlock(w: PdfWriter, given: readonly string[], title = 'Cautions'): void {
+  const cautions = given.map(pdfSafe);
   const { doc } = w;
   const pad = 8;
   const inner = w.width - 2 * pad - 14;

@@ -55,6 +55,22 @@ export interface TableColumn {
   align?: Align;
 }
 
+/** Characters Barlow has no glyph for, as words or ASCII, so no text prints as empty boxes. */
+const MISSING_GLYPHS: Record<string, string> = { '→': '->', '←': '<-', '↑': 'up', '↓': 'down', θ: 'theta', φ: 'phi', β: 'beta', Σ: 'sum' };
+
+/** Text as Barlow can print it. */
+export function pdfSafe(text: string): string {
+  return text.replace(/[→←↑↓θφβΣ]/g, (c) => MISSING_GLYPHS[c] ?? '?');
+}
+
+/** Shortens a one-line text with an ellipsis until it fits the width in the current font. */
+export function fit(doc: PDFKit.PDFDocument, text: string, widthPt: number): string {
+  if (doc.widthOfString(text) <= widthPt) return text;
+  let s = text;
+  while (s.length > 1 && doc.widthOfString(`${s}…`) > widthPt) s = s.slice(0, -1);
+  return `${s.trimEnd()}…`;
+}
+
 /** One page flow of a Ballast document. */
 export class PdfWriter {
   readonly doc: PDFKit.PDFDocument;
@@ -97,8 +113,8 @@ export class PdfWriter {
   }
 
   title(text: string, sub?: string): void {
-    this.doc.font('bold').fontSize(18).fillColor(COLORS.ink).text(text, this.left, this.doc.y, { width: this.width });
-    if (sub) this.doc.font('regular').fontSize(10.5).fillColor(COLORS.muted).text(sub, { width: this.width });
+    this.doc.font('bold').fontSize(18).fillColor(COLORS.ink).text(pdfSafe(text), this.left, this.doc.y, { width: this.width });
+    if (sub) this.doc.font('regular').fontSize(10.5).fillColor(COLORS.muted).text(pdfSafe(sub), { width: this.width });
     this.doc.moveDown(0.6).fillColor(COLORS.ink);
   }
 
@@ -106,7 +122,7 @@ export class PdfWriter {
     this.ensureSpace(48);
     this.doc.moveDown(0.5);
     const y = this.doc.y;
-    this.doc.font('bold').fontSize(12.5).fillColor(COLORS.accent).text(text, this.left, y, { width: this.width });
+    this.doc.font('bold').fontSize(12.5).fillColor(COLORS.accent).text(pdfSafe(text), this.left, y, { width: this.width });
     this.doc
       .moveTo(this.left, this.doc.y + 1)
       .lineTo(this.left + this.width, this.doc.y + 1)
@@ -116,7 +132,8 @@ export class PdfWriter {
     this.doc.moveDown(0.4).font('regular').fontSize(10).fillColor(COLORS.ink);
   }
 
-  paragraph(text: string, opts: { bold?: boolean; color?: string; size?: number } = {}): void {
+  paragraph(raw: string, opts: { bold?: boolean; color?: string; size?: number } = {}): void {
+    const text = pdfSafe(raw);
     this.doc
       .font(opts.bold ? 'bold' : 'regular')
       .fontSize(opts.size ?? 10)
@@ -128,7 +145,7 @@ export class PdfWriter {
 
   bullets(items: string[], opts: { color?: string } = {}): void {
     this.doc.font('regular').fontSize(10).fillColor(opts.color ?? COLORS.ink);
-    for (const item of items) {
+    for (const item of items.map(pdfSafe)) {
       const h = this.doc.heightOfString(item, { width: this.width - 14 });
       this.ensureSpace(h + 2);
       const y = this.doc.y;
@@ -142,7 +159,7 @@ export class PdfWriter {
   /** Two columns: label and value. */
   keyValues(rows: [string, string][], labelShare = 0.34): void {
     const lw = this.width * labelShare;
-    for (const [k, v] of rows) {
+    for (const [k, v] of rows.map(([a, b]) => [pdfSafe(a), pdfSafe(b)])) {
       this.doc.font('regular').fontSize(10);
       const h = Math.max(this.doc.heightOfString(k, { width: lw - 8 }), this.doc.heightOfString(v, { width: this.width - lw }));
       this.ensureSpace(h + 3);
@@ -158,7 +175,8 @@ export class PdfWriter {
     const total = columns.reduce((a, c) => a + c.width, 0);
     const widths = columns.map((c) => (c.width / total) * this.width);
     const pad = 3;
-    const drawRow = (cells: string[], bold: boolean, color: string) => {
+    const drawRow = (raw: string[], bold: boolean, color: string) => {
+      const cells = raw.map(pdfSafe);
       this.doc.font(bold ? 'bold' : 'regular').fontSize(9);
       const h = Math.max(...cells.map((c, i) => this.doc.heightOfString(c, { width: widths[i] - 2 * pad }))) + 2 * pad;
       return { h, draw: (y: number) => {
@@ -201,10 +219,10 @@ export class PdfWriter {
       const w = this.doc.page.width - left - right;
       // Text in the margins must not trigger pdfkit's automatic page break.
       this.doc.page.margins = { left, right, top: 0, bottom: 0 };
-      this.doc.font('bold').fontSize(8.5).fillColor(COLORS.muted).text(`BALLAST · ${this.opts.title}`, left, top - 30, { width: w * 0.6, lineBreak: false });
-      if (this.opts.headerRight) this.doc.font('regular').text(this.opts.headerRight, left + w * 0.6, top - 30, { width: w * 0.4, align: 'right', lineBreak: false });
+      this.doc.font('bold').fontSize(8.5).fillColor(COLORS.muted).text(fit(this.doc, `BALLAST · ${this.opts.title}`, w * 0.6), left, top - 30, { width: w * 0.6, lineBreak: false });
+      if (this.opts.headerRight) this.doc.font('regular').text(fit(this.doc, this.opts.headerRight, w * 0.4 - 6), left + w * 0.6, top - 30, { width: w * 0.4, align: 'right', lineBreak: false });
       const fy = this.doc.page.height - bottom + 22;
-      if (this.opts.footerLeft) this.doc.font('regular').fontSize(8).text(this.opts.footerLeft, left, fy, { width: w * 0.75, lineBreak: false });
+      if (this.opts.footerLeft) this.doc.font('regular').fontSize(8).text(fit(this.doc, this.opts.footerLeft, w * 0.75 - 6), left, fy, { width: w * 0.75, lineBreak: false });
       this.doc.font('regular').fontSize(8).text(`Page ${i - range.start + 1} of ${range.count}`, left + w * 0.75, fy, { width: w * 0.25, align: 'right', lineBreak: false });
       this.doc.page.margins = { left, right, top, bottom };
     }

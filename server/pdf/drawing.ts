@@ -1,4 +1,4 @@
-import { COLORS, type PdfWriter } from './document.ts';
+import { COLORS, pdfSafe, type PdfWriter } from './document.ts';
 
 /**
  * A framed drawing view on the page: world coordinates (mm, u to the right, v up) fitted into a box
@@ -77,7 +77,7 @@ export class Viewport {
       .font(opts.bold ? 'bold' : 'regular')
       .fontSize(opts.size ?? 7.5)
       .fillColor(opts.color ?? COLORS.ink)
-      .text(text, x + (opts.dx ?? 4), y + (opts.dy ?? -9), { lineBreak: false });
+      .text(pdfSafe(text), x + (opts.dx ?? 4), y + (opts.dy ?? -9), { lineBreak: false });
   }
 
   private scaleBar(): void {

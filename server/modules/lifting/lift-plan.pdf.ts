@@ -85,7 +85,7 @@ function drawViews(w: PdfWriter, plan: PlanView): void {
   const tensions = new Map(result.legs.map((l) => [l.pickPointId, l]));
 
   // Plan: x to the right, y up.
-  const plan2 = new Viewport(w, { x: w.left, y, width: half, height: h }, { minU: minX, maxU: maxX, minV: minY, maxV: maxY }, 'PLAN (looking down, x →, y ↑)');
+  const plan2 = new Viewport(w, { x: w.left, y, width: half, height: h }, { minU: minX, maxU: maxX, minV: minY, maxV: maxY }, 'PLAN (looking down; x to the right, y up)');
   if (zone) plan2.rect([zone.minXMm, zone.minYMm], [zone.maxXMm, zone.maxYMm], { color: COLORS.danger, dash: 4, width: 0.8 });
   if (zone) plan2.label([zone.minXMm, zone.maxYMm], `Exclusion zone (+${mm(zone.marginMm)} mm)`, { color: COLORS.danger, dy: 2 });
   if (bounds) plan2.rect([bounds.minMm[0], bounds.minMm[1]], [bounds.maxMm[0], bounds.maxMm[1]], { fill: '#dfe6ec', color: COLORS.ink, width: 0.8 });
@@ -93,25 +93,27 @@ function drawViews(w: PdfWriter, plan: PlanView): void {
   for (const l of legs) plan2.line([l.from[0], l.from[1]], [l.to[0], l.to[1]], { color: COLORS.accent, width: 1.2 });
   if (beam) plan2.line([beam[0][0], beam[0][1]], [beam[1][0], beam[1][1]], { color: COLORS.ink, width: 3 });
   plan2.cog([cog[0], cog[1]]);
-  input.pickPoints.forEach((p) => {
+  // Labels alternate above and below their points so that close pick points stay readable.
+  const off = (i: number) => (i % 2 === 0 ? { dx: 4, dy: -11 } : { dx: 4, dy: 3 });
+  input.pickPoints.forEach((p, i) => {
     plan2.dot([p.positionMm[0], p.positionMm[1]], 3, COLORS.danger);
     const t = tensions.get(p.id);
-    plan2.label([p.positionMm[0], p.positionMm[1]], `${p.id}${t ? `: ${kg(t.worstTensionKg)}` : ''}`, { bold: true });
+    plan2.label([p.positionMm[0], p.positionMm[1]], `${p.id}${t ? `: ${kg(t.worstTensionKg)}` : ''}`, { bold: true, ...off(i) });
   });
   if (hook) plan2.dot([hook[0], hook[1]], 2.5, COLORS.ink);
 
   // Elevation: x to the right, z up.
-  const elev = new Viewport(w, { x: w.left + half + 10, y, width: half, height: h }, { minU: minX, maxU: maxX, minV: minZ, maxV: maxZ }, 'ELEVATION (looking along +y, x →, z ↑)');
+  const elev = new Viewport(w, { x: w.left + half + 10, y, width: half, height: h }, { minU: minX, maxU: maxX, minV: minZ, maxV: maxZ }, 'ELEVATION (looking along +y; x to the right, z up)');
   if (bounds) elev.rect([bounds.minMm[0], bounds.minMm[2]], [bounds.maxMm[0], bounds.maxMm[2]], { fill: '#dfe6ec', color: COLORS.ink, width: 0.8 });
   if (unc) elev.rect([cog[0] - unc[0], cog[2] - unc[2]], [cog[0] + unc[0], cog[2] + unc[2]], { color: COLORS.accent, dash: 2, width: 0.6 });
   for (const l of legs) elev.line([l.from[0], l.from[2]], [l.to[0], l.to[2]], { color: COLORS.accent, width: 1.2 });
   if (beam) elev.line([beam[0][0], beam[0][2]], [beam[1][0], beam[1][2]], { color: COLORS.ink, width: 3 });
   elev.cog([cog[0], cog[2]]);
   elev.label([cog[0], cog[2]], 'CoG', { dx: 7, dy: -3 });
-  input.pickPoints.forEach((p) => {
+  input.pickPoints.forEach((p, i) => {
     elev.dot([p.positionMm[0], p.positionMm[2]], 3, COLORS.danger);
     const t = tensions.get(p.id);
-    elev.label([p.positionMm[0], p.positionMm[2]], `${p.id}${t ? ` ${t.angleFromHorizontalDeg.toFixed(0)}°` : ''}`, { bold: true });
+    elev.label([p.positionMm[0], p.positionMm[2]], `${p.id}${t ? ` ${t.angleFromHorizontalDeg.toFixed(0)}°` : ''}`, { bold: true, ...off(i) });
   });
   if (hook) {
     elev.dot([hook[0], hook[2]], 3, COLORS.ink);
