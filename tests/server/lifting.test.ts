@@ -248,6 +248,28 @@ describe('sign-off', () => {
   });
 });
 
+describe('hanging points', () => {
+  it("a plan on a venue's point takes the venue's current rating; venue staff see only their own venue's points", async () => {
+    const venues = await t.db('venues').where({ production_id: productionId }).select('id', 'name');
+    const kelder = venues.find((v) => v.name === 'Kelderwerf Hall')!;
+    const created = await send(planner, 'post', `${base}/hanging-points`, { venueId: kelder.id, label: 'Truss pickup T1', ratingKg: 2000 });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    // The Loomworks venue user may not add points to another venue.
+    expect((await send(venue, 'post', `${base}/hanging-points`, { venueId: kelder.id, label: 'X', ratingKg: 100 })).status).toBe(403);
+    const theirs = (await venue.get(`${base}/hanging-points`).expect(200)).body.hangingPoints;
+    expect(theirs.length).toBeGreaterThan(0);
+    expect(theirs.every((p: { venueName: string }) => p.venueName === 'Loomworks Hall')).toBe(true);
+
+    const plan = await createPlan(planner, { venueId: kelder.id, suspension: { kind: 'single-hook', hoistGearId: gear.get('CH-1000-01')!.id, hangingPoint: { label: 'Truss pickup T1', ratingKg: null, source: 'venue' } } });
+    expect(plan.result.components.find((c: { kind: string }) => c.kind === 'hanging-point').capacityKg).toBe(2000);
+    const lowered = await send(planner, 'patch', `${base}/hanging-points/${created.body.hangingPoint.id}`, { version: 1, ratingKg: 300 });
+    expect(lowered.status).toBe(200);
+    const after = (await planner.get(`${base}/plans/${plan.id}`).expect(200)).body.plan;
+    expect(after.result.verdict).toBe('over capacity');
+    expect(after.result.problems.join(' ')).toMatch(/hanging point Truss pickup T1/);
+  });
+});
+
 describe('manual handling', () => {
   it('lists sections above the threshold with a verdict, the method and the NIOSH multipliers', async () => {
     const res = await rigger.get(`${base}/handling`).expect(200);
