@@ -275,8 +275,18 @@ export async function commitImport(db: Knex, log: Logger, importRow: ImportRow, 
       const [{ max }] = (await trx('machine_part_lines').where({ production_id: productionId }).max('sort_order as max')) as { max: number | null }[];
       let sort = max ?? 0;
       for (let i = 0; i < diff.added.length; i += CHUNK) {
-        const chunk = diff.added.slice(i, i + CHUNK).map((l) => ({ ...lineColumns(l), production_id: productionId, machine_id: machine.id, assembly_id: asm(l.assemblyNumber), sort_order: ++sort }));
-        await trx('machine_part_lines').insert(chunk);
+        // One JSON parameter per chunk rather than 17 bindings per row: far less work on both sides.
+        const chunk = diff.added.slice(i, i + CHUNK).map((l) => ({ ...lineColumns(l), cog_mm: l.cogMm, bbox_mm: l.bboxMm, assembly_id: asm(l.assemblyNumber), sort_order: ++sort }));
+        await trx.raw(
+          `insert into machine_part_lines (production_id, machine_id, assembly_id, part_number, name, quantity, unit_mass_kg, mass_source, material,
+             volume_mm3, make_or_buy, value, currency, country_of_origin, serial_numbers, cog_mm, bbox_mm, notes, sort_order)
+           select ?, ?, v.assembly_id, v.part_number, v.name, v.quantity, v.unit_mass_kg, v.mass_source, v.material,
+             v.volume_mm3, v.make_or_buy, v.value, v.currency, v.country_of_origin, v.serial_numbers, v.cog_mm, v.bbox_mm, v.notes, v.sort_order
+           from jsonb_to_recordset(?::jsonb) as v(assembly_id uuid, part_number text, name text, quantity numeric, unit_mass_kg float8, mass_source text,
+             material text, volume_mm3 float8, make_or_buy text, value numeric, currency text, country_of_origin text, serial_numbers text[],
+             cog_mm jsonb, bbox_mm jsonb, notes text, sort_order int)`,
+          [productionId, machine.id, JSON.stringify(chunk)],
+        );
         done += chunk.length;
         await progress(done, total);
       }
