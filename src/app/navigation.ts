@@ -17,15 +17,11 @@ export interface NavItem {
 
 export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Overview', path: '', action: 'production.read', scope: 'production' },
-  // Later issues add their screens here, e.g.
-  //   { label: 'Machine', path: 'machine', action: 'machine.read', scope: 'production' },
-  //   { label: 'Lifting', path: 'lifting', action: 'liftplan.read', scope: 'production' },
-  //   { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
-  //   { label: 'Tour & venues', path: 'tour', action: 'venue.read', scope: 'production' },
-  //   { label: 'Check-in', path: 'check-in', action: 'engagement.checkin', scope: 'production' },
+  { label: 'Machine', path: 'machine', action: 'machine.read', scope: 'production' },
+  { label: 'Lifting', path: 'lifting', action: 'liftplan.read', scope: 'production' },
+  { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
   { label: 'Tour & venues', path: 'tour', action: 'venue.read', scope: 'production' },
   { label: 'Check-in', path: 'check-in', action: 'engagement.checkin', scope: 'production' },
-  { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
   { label: 'Settings', path: 'settings', action: 'production.settings.edit', scope: 'production' },
   { label: 'People', path: '/admin/people', action: 'people.manage', scope: 'company' },
   { label: 'Mail', path: '/admin/mail', action: 'mail.read', scope: 'company' },
