@@ -210,7 +210,9 @@ describe('manifest and e-mail', () => {
     expect(sent.body.mailings[0]).toMatchObject({ recipient: 'dock@own-hall.example', status: 'sent', kind: 'manifest', error: null });
     const [mail] = await caughtMail(t.db, 'dock@own-hall.example', 'Manifest:%');
     expect(mail.text_body).toMatch(/corridor door B2/);
-    expect(mail.attachments[0].filename).toMatch(/^manifest-own-hall-2027-03-10\.csv$/);
+    expect(mail.attachments.map((a: { filename: string }) => a.filename)).toEqual(['manifest-own-hall-2027-03-10.pdf', 'manifest-own-hall-2027-03-10.csv']);
+    expect(mail.attachments[0].contentType).toBe('application/pdf');
+    expect(mail.attachments[0].size).toBeGreaterThan(1000);
 
     const e = (await planner.get(tour()).expect(200)).body.tour.engagements.find((x: { id: string }) => x.id === ownEngagement.id);
     await planner.patch(`${tour()}/engagements/${ownEngagement.id}`).set('x-csrf-token', planner.csrf).send({ version: e.version, loadInOn: '2027-03-09' }).expect(200);
@@ -249,7 +251,8 @@ describe('manifest and e-mail', () => {
       const retried = await planner.post(`${tour()}/mailings/${failed.id}/retry`).set('x-csrf-token', planner.csrf).send({}).expect(200);
       expect(retried.body.mailing).toMatchObject({ status: 'sent', attempts: 2, error: null });
       const [mail] = await caughtMail(t.db, to);
-      expect(mail.attachments).toHaveLength(1);
+      // The same message as first tried: the PDF and the CSV.
+      expect(mail.attachments).toHaveLength(2);
       await planner.post(`${tour()}/mailings/${failed.id}/retry`).set('x-csrf-token', planner.csrf).send({}).expect(409);
 
       const before = await t.db('invitations').whereRaw('lower(email) = ?', [`new-${to}`]);

@@ -4,6 +4,7 @@ import type { InviteVenueStaffBody, MailingView, SendManifestBody } from '../../
 import type { Mailer, OutgoingMail } from '../../mail/mailer.ts';
 import { AppError, invalid, notFound } from '../../http/errors.ts';
 import { invitationsService } from '../invitations/invitations.service.ts';
+import { venueManifestPdf } from '../documents/manifest-document.service.ts';
 import { buildManifest, manifestChanges, manifestCsv, manifestText, snapshotOf, type ManifestSnapshot } from './manifest.service.ts';
 
 /**
@@ -124,7 +125,12 @@ export function mailingsService(deps: { db: Knex; mailer: Mailer; appUrl: string
       const text = manifestText(manifest, { link, changes, message: body.message });
       const csv = new TextEncoder().encode(manifestCsv(manifest));
       const filename = `manifest-${manifest.venue.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${manifest.engagement.loadInOn}.csv`;
-      const attachments = [{ filename, content: csv, contentType: 'text/csv' }];
+      // The printed manifest (rendered by the documents module from the same manifest data) and the crate list.
+      const pdf = await venueManifestPdf(db, productionId, engagementId, { userId: sentBy });
+      const attachments = [
+        { filename: pdf.filename, content: new Uint8Array(pdf.pdf), contentType: 'application/pdf' },
+        { filename, content: csv, contentType: 'text/csv' },
+      ];
       const out: MailingView[] = [];
       for (const r of recipients) {
         const result = await deliver({ to: r.email, subject, text, attachments });

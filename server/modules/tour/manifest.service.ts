@@ -250,6 +250,6 @@ export function manifestText(m: ManifestData, opts: { link: string; changes: str
   }
   lines.push('');
   lines.push(`The full manifest, always up to date: ${opts.link}`);
-  lines.push('The crate list is attached as a spreadsheet (CSV).');
+  lines.push('The manifest is attached as a PDF, and the crate list as a spreadsheet (CSV).');
   return lines.join('\n');
 }

@@ -48,6 +48,9 @@ export const useManifest = (productionId: string, engagementId: string) => useQu
 /** The address of the manifest as a spreadsheet (CSV), for a download link. */
 export const manifestCsvHref = (productionId: string, engagementId: string) => `/api${base(productionId)}/engagements/${seg(engagementId)}/manifest/csv`;
 
+/** The printed manifest (PDF, rendered by the documents module), for a download link. */
+export const manifestPdfHref = (productionId: string, engagementId: string) => `/api/productions/${seg(productionId)}/documents/engagements/${seg(engagementId)}/manifest.pdf`;
+
 /** `GET …/tour/engagements/:engagementId/check` → expected, here, missing, damaged and flags. */
 export function engagementCheckQueryOptions(productionId: string, engagementId: string) {
   return queryOptions({

@@ -6,7 +6,7 @@ import { useCurrentProduction, useMay } from '../../../lib/current-production.ts
 import { apiFieldErrors } from '../../../lib/form-errors.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { useTour, type TourView } from '../api/get-tour.ts';
-import { manifestCsvHref, scanPhotoSrc, useEngagementCheck, useMailings, useMailMutations, useManifest, useScans } from '../api/manifest.ts';
+import { manifestCsvHref, manifestPdfHref, scanPhotoSrc, useEngagementCheck, useMailings, useMailMutations, useManifest, useScans } from '../api/manifest.ts';
 import { useTourMutations } from '../api/tour-mutations.ts';
 import { VerdictBadge } from './verdict.tsx';
 
@@ -175,9 +175,14 @@ function ManifestCard({ productionId, engagementId }: { productionId: string; en
       title="Manifest"
       description={`${m.totals.crateCount} crates · ${m.totals.grossKg === null ? `at least ${units.formatMass(m.totals.knownGrossKg, 0)} (${m.totals.unknownMassCount} without a known mass)` : units.formatMass(m.totals.grossKg, 0)} · ${m.totals.volumeM3.toFixed(1)} m³`}
       actions={
-        <a href={manifestCsvHref(productionId, engagementId)} className={buttonClasses({ variant: 'secondary', size: 'sm' })} download>
-          Download CSV
-        </a>
+        <>
+          <a href={manifestPdfHref(productionId, engagementId)} className={buttonClasses({ variant: 'secondary', size: 'sm' })} download>
+            Download PDF
+          </a>
+          <a href={manifestCsvHref(productionId, engagementId)} className={buttonClasses({ variant: 'secondary', size: 'sm' })} download>
+            Download CSV
+          </a>
+        </>
       }
     >
       {m.notes.map((n) => (
