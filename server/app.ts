@@ -28,6 +28,8 @@ import { tourRoutes } from './modules/tour/tour.routes.ts';
 import { liftingRoutes } from './modules/lifting/lifting.routes.ts';
 import { crateRoutes } from './modules/crates/crates.routes.ts';
 import { loadRoutes } from './modules/loads/loads.routes.ts';
+import { splitRoutes } from './modules/split/split.routes.ts';
+import { impactRoutes } from './modules/impact/impact.routes.ts';
 import { documentRoutes } from './modules/documents/documents.routes.ts';
 
 export interface AppDeps {
@@ -59,6 +61,8 @@ function modules(deps: AppDeps): [string, RouteDef[]][] {
     ['/api/productions/:productionId/lifting', liftingRoutes(deps)],
     ['/api/productions/:productionId/crates', crateRoutes(deps)],
     ['/api/productions/:productionId/loads', loadRoutes(deps)],
+    ['/api/productions/:productionId/split', splitRoutes(deps)],
+    ['/api/productions/:productionId/impact', impactRoutes(deps)],
     ['/api/productions/:productionId/documents', documentRoutes(deps)],
   ];
 }

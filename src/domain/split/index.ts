@@ -21,6 +21,7 @@ import type { ProposedSection, SplitInput, SplitLimits, SplitProposal, SplitResu
 
 export type * from './types.ts';
 export { rng } from './heuristic.ts';
+export { checkSplit, type SplitCheck, type CheckedSection, type SplitCheckInput } from './check.ts';
 
 /** Fully divided unit count at or below which the search is exhaustive. */
 export const EXACT_UNIT_LIMIT = 9;
