@@ -3,7 +3,7 @@ import { COLORS, PdfWriter } from './document.ts';
 import { lengthText, massText } from './figures.ts';
 import { centreOfGravity, drawHandlingMark, marksGrid, mmToPt } from './handling-marks.ts';
 import type { CrateDocContext } from './packing-list.pdf.ts';
-import { qrPng } from './qr.ts';
+import { drawQr } from './qr.ts';
 
 /**
  * Crate labels, one or two to a page: the crate code large, production and machine, gross mass, the CoG
@@ -13,7 +13,7 @@ import { qrPng } from './qr.ts';
 
 export type LabelsPerPage = 1 | 2;
 
-async function drawLabel(w: PdfWriter, d: CrateDocument, ctx: CrateDocContext, box: { x: number; y: number; width: number; height: number }): Promise<void> {
+function drawLabel(w: PdfWriter, d: CrateDocument, ctx: CrateDocContext, box: { x: number; y: number; width: number; height: number }): void {
   const doc = w.doc;
   const c = d.crate;
   const f = c.figures;
@@ -25,7 +25,7 @@ async function drawLabel(w: PdfWriter, d: CrateDocument, ctx: CrateDocContext, b
   const qrSize = Math.min(box.width * 0.36, box.height * (big ? 0.3 : 0.45));
   const qrX = box.x + box.width - pad - qrSize;
   const qrY = box.y + pad;
-  doc.image(await qrPng(d.qrText), qrX, qrY, { width: qrSize, height: qrSize });
+  drawQr(doc, d.qrText, qrX, qrY, qrSize);
   doc.font('regular').fontSize(6.5).fillColor(COLORS.muted).text(d.qrText, qrX - 10, qrY + qrSize + 2, { width: qrSize + 10, align: 'center' });
   const qrBottom = doc.y;
 
@@ -124,7 +124,7 @@ export async function renderCrateLabelsPdf(docs: readonly CrateDocument[], ctx: 
   for (let i = 0; i < docs.length; i++) {
     const slot = i % perPage;
     if (i > 0 && slot === 0) w.doc.addPage();
-    await drawLabel(w, docs[i], ctx, { x: w.left, y: top + slot * (cellH + gap), width: w.width, height: cellH });
+    drawLabel(w, docs[i], ctx, { x: w.left, y: top + slot * (cellH + gap), width: w.width, height: cellH });
   }
   // Leave the cursor inside the page so finish() adds no page.
   w.doc.x = w.left;
