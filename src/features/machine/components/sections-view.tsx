@@ -7,6 +7,7 @@ import { MovePanel } from './move-panel.tsx';
 import { WeighingForm } from './weighing-form.tsx';
 import { SectionForm } from './section-form.tsx';
 import { MarginForm } from './margin-form.tsx';
+import { AddOnsPanel } from './add-ons-panel.tsx';
 
 // three.js is large: the 3D view loads only when someone opens it.
 const SectionView3d = lazy(() => import('./section-view-3d.tsx'));
@@ -80,6 +81,7 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
                     </>
                   }
                 />
+                <AddOnsPanel productionId={productionId} sectionId={s.id} addOns={summary.addOns.filter((a) => a.sectionId === s.id)} mayEdit={mayEdit} />
                 {viewing === s.id && (
                   <Card
                     title={`3D view of ${s.code}`}
