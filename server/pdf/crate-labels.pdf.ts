@@ -1,7 +1,7 @@
 import type { CrateDocument } from '../modules/documents/crate-documents.service.ts';
 import { COLORS, PdfWriter } from './document.ts';
 import { lengthText, massText } from './figures.ts';
-import { centreOfGravity, drawHandlingMark, marksGrid, mmToPt } from './handling-marks.ts';
+import { centreOfGravity, drawHandlingMark, ISO780_SYMBOL_HEIGHTS_MM, marksGrid, mmToPt } from './handling-marks.ts';
 import type { CrateDocContext } from './packing-list.pdf.ts';
 import { drawQr } from './qr.ts';
 
@@ -85,12 +85,12 @@ function drawLabel(w: PdfWriter, d: CrateDocument, ctx: CrateDocContext, box: { 
     y = doc.y + 4;
   }
 
-  // Handling marks in the space left at the bottom, as large as fits (up to 50 mm on a full-page label).
+  // Handling marks in the space left at the bottom: ISO 780's 100 mm where it fits, proportionally smaller where not.
   if (d.marks.length) {
     const avail = box.width - 2 * pad;
     const caption = 12;
     const room = box.y + box.height - pad - y - 4;
-    const grid = marksGrid(d.marks.length, avail, room, mmToPt(big ? 50 : 30), caption);
+    const grid = marksGrid(d.marks.length, avail, room, mmToPt(ISO780_SYMBOL_HEIGHTS_MM[0]), caption);
     const size = Math.max(18, grid.sizePt);
     const rows = Math.ceil(d.marks.length / grid.perRow);
     let my = box.y + box.height - pad - rows * (size + caption) - (rows - 1) * grid.gapPt;
