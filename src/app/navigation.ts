@@ -20,6 +20,8 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Machine', path: 'machine', action: 'machine.read', scope: 'production' },
   { label: 'Lifting', path: 'lifting', action: 'liftplan.read', scope: 'production' },
   { label: 'Crates & loads', path: 'crates', action: 'crate.read', scope: 'production' },
+  { label: 'Split advisor', path: 'split', action: 'machine.read', scope: 'production' },
+  { label: 'Impact', path: 'impact', action: 'machine.read', scope: 'production' },
   { label: 'Tour & venues', path: 'tour', action: 'venue.read', scope: 'production' },
   { label: 'Check-in', path: 'check-in', action: 'engagement.checkin', scope: 'production' },
   { label: 'Settings', path: 'settings', action: 'production.settings.edit', scope: 'production' },
