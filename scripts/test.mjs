@@ -48,29 +48,38 @@ const built = step('build', [bin('vite/bin/vite.js'), 'build', '--logLevel', 'wa
 step('migrate and seed', ['--import', 'tsx', 'scripts/migrate-and-seed.ts', '--seed']);
 
 const outDir = mkdtempSync(join(tmpdir(), 'ballast-vitest-'));
-const report = join(outDir, 'report.json');
-const projects = built ? [] : ['--project', 'domain', '--project', 'server', '--project', 'client'];
-const before = stepFailures;
-const testsOk = step('tests', [bin('vitest/vitest.mjs'), 'run', ...projects, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra]);
-// The test step's own failure is counted test by test from its report below, not twice.
-if (existsSync(report)) stepFailures = before;
-
 let passed = 0;
 let failed = 0;
-if (existsSync(report)) {
-  const r = JSON.parse(readFileSync(report, 'utf8'));
-  passed = r.numPassedTests;
-  failed = r.numFailedTests;
-  // A file that fails to load has no tests but is still a failure.
-  failed += r.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
-  // The runner failed for another reason (an unhandled error, a teardown that threw): count it.
-  if (!testsOk && failed === 0) {
-    log('the test runner exited with an error although every test passed (see "Unhandled" above)');
+
+/**
+ * Runs one vitest pass and adds its counts. The browser tests run in a second pass, after the
+ * others, so that they never race the API tests over the same demo rows.
+ */
+function testPass(name, projects) {
+  const report = join(outDir, `${name}.json`);
+  const ok = step(name, [bin('vitest/vitest.mjs'), 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra]);
+  if (!existsSync(report)) {
     failed++;
+    return;
   }
-} else {
-  failed++;
+  // The step's own failure is counted test by test from its report, not twice.
+  if (!ok) stepFailures--;
+  const r = JSON.parse(readFileSync(report, 'utf8'));
+  let f = r.numFailedTests;
+  // A file that fails to load has no tests but is still a failure.
+  f += r.testResults.filter((t) => t.status === 'failed' && t.assertionResults.length === 0).length;
+  // The runner failed for another reason (an unhandled error, a teardown that threw): count it.
+  if (!ok && f === 0) {
+    log(`${name}: the test runner exited with an error although every test passed (see "Unhandled" above)`);
+    f++;
+  }
+  passed += r.numPassedTests;
+  failed += f;
 }
+
+testPass('tests', ['domain', 'server', 'client']);
+if (built) testPass('browser tests', ['e2e']);
+else log('browser tests skipped: the client did not build (counted as a failure above)');
 rmSync(outDir, { recursive: true, force: true });
 failed += stepFailures;
 cleanup();
