@@ -161,18 +161,22 @@ export function checkInService(db: Knex) {
       const nextVenue = nextLeg ? engagements.find((e) => e.id === nextLeg.toEngagementId) : undefined;
       const leaving = nextLeg ? `the leg to ${nextVenue?.venueName ?? 'the next venue'}${nextLeg.departsOn ? ` leaving ${nextLeg.departsOn}` : ''}` : '';
       const flags: CheckStatusView['flags'] = [];
+      // "Not checked in" means something only once check-in has begun here (a scan exists) or the
+      // load-in day has come; before that, every crate is simply still on its way.
+      const today = new Date().toISOString().slice(0, 10);
+      const checkInBegun = latest.length > 0 || (!!engagement.loadInOn && engagement.loadInOn <= today);
       for (const r of rows) {
         const isExpected = expectedIds.includes(r.crateId);
         if (!isExpected && r.in) flags.push({ crateId: r.crateId, code: r.code, message: `${r.code} was checked in at ${engagement.venueName} but is not on the leg to it.` });
         if (!isExpected || !r.onNextLeg) continue;
-        if (!r.in || r.in.state === 'missing') {
+        if ((!r.in && checkInBegun) || r.in?.state === 'missing') {
           flags.push({ crateId: r.crateId, code: r.code, message: `${r.code} ${r.in ? 'is marked missing' : 'has not been checked in'} at ${engagement.venueName} and is due on ${leaving}.` });
         } else if (r.out?.state === 'missing') {
           flags.push({ crateId: r.crateId, code: r.code, message: `${r.code} was marked missing at load-out from ${engagement.venueName} and is due on ${leaving}.` });
         }
       }
       // Expected here but not on the next leg and never checked in: it may be lost, and nothing follows it.
-      for (const r of expectedRows) if (!r.onNextLeg && nextLeg && (!r.in || r.in.state === 'missing')) flags.push({ crateId: r.crateId, code: r.code, message: `${r.code} missed ${engagement.venueName} and is not on the next leg: find out where it is.` });
+      for (const r of expectedRows) if (!r.onNextLeg && nextLeg && ((!r.in && checkInBegun) || r.in?.state === 'missing')) flags.push({ crateId: r.crateId, code: r.code, message: `${r.code} missed ${engagement.venueName} and is not on the next leg: find out where it is.` });
       return {
         engagement,
         nextLeg: nextLeg ? { id: nextLeg.id, departsOn: nextLeg.departsOn, toVenueName: nextVenue?.venueName ?? '' } : null,
