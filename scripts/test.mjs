@@ -32,10 +32,10 @@ const node = process.execPath;
 const bin = (p) => join(root, 'node_modules', p);
 
 let stepFailures = 0;
-const step = (name, args) => {
+const step = (name, args, stepEnv = env) => {
   log(`${name}…`);
   const t = Date.now();
-  const r = spawnSync(node, args, { cwd: root, env, stdio: 'inherit' });
+  const r = spawnSync(node, args, { cwd: root, env: stepEnv, stdio: 'inherit' });
   const ok = r.status === 0;
   log(`${name}: ${ok ? 'ok' : 'FAILED'} (${((Date.now() - t) / 1000).toFixed(1)} s)`);
   if (!ok) stepFailures++;
@@ -55,9 +55,9 @@ let failed = 0;
  * Runs one vitest pass and adds its counts. The browser tests run in a second pass, after the
  * others, so that they never race the API tests over the same demo rows.
  */
-function testPass(name, projects) {
+function testPass(name, projects, passEnv = env) {
   const report = join(outDir, `${name}.json`);
-  const ok = step(name, [bin('vitest/vitest.mjs'), 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra]);
+  const ok = step(name, [bin('vitest/vitest.mjs'), 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...extra], passEnv);
   if (!existsSync(report)) {
     failed++;
     return;
@@ -78,7 +78,8 @@ function testPass(name, projects) {
 }
 
 testPass('tests', ['domain', 'server', 'client']);
-if (built) testPass('browser tests', ['e2e']);
+// The browser tests get a database of their own with the pristine demo, untouched by the API tests.
+if (built) testPass('browser tests', ['e2e'], { ...env, DATABASE_URL: cluster.createDatabase('ballast_browser') });
 else log('browser tests skipped: the client did not build (counted as a failure above)');
 rmSync(outDir, { recursive: true, force: true });
 failed += stepFailures;
