@@ -1,4 +1,18 @@
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+
+/**
+ * tsx's ESM entry, found with createRequire through tsx's own exports map rather than
+ * import.meta.resolve, which the test runner's module loader (where the browser tests start the app)
+ * does not offer. Its CommonJS entry cannot register the ESM loader, hence the map lookup.
+ */
+function tsxEsmApiUrl(): string {
+  const require = createRequire(import.meta.url);
+  const pkgPath = require.resolve('tsx/package.json');
+  const pkg = require(pkgPath) as { exports: Record<string, { import: { default: string } }> };
+  return new URL(pkg.exports['./esm/api'].import.default, pathToFileURL(pkgPath)).href;
+}
 
 /**
  * Runs a TypeScript module on a worker thread and resolves with the first `{ type: 'done' }` message it
@@ -7,7 +21,7 @@ import { Worker } from 'node:worker_threads';
  * A worker that outlives `timeoutMs` is terminated.
  */
 export function runOnWorker<TDone>(moduleUrl: URL, workerData: unknown, onMessage: (msg: { type: string; [k: string]: unknown }) => void, timeoutMs: number): Promise<TDone> {
-  const boot = `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(moduleUrl.href)}); });`;
+  const boot = `import(${JSON.stringify(tsxEsmApiUrl())}).then((m) => { m.register(); return import(${JSON.stringify(moduleUrl.href)}); });`;
   return new Promise<TDone>((resolve, reject) => {
     const worker = new Worker(boot, { eval: true, workerData });
     let settled = false;

@@ -1,6 +1,3 @@
-import { createRequire } from 'node:module';
-import { pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { AdoptSplitBody, SectionUnitBody, SplitLimitsQuery, SplitLimitsView, SplitRunView, StartSplitRunBody } from '../../../src/domain/contracts/split.ts';
@@ -8,6 +5,7 @@ import { checkSplit, type SplitLimits, type SplitResult } from '../../../src/dom
 import { AppError, invalid, notFound } from '../../http/errors.ts';
 import { enqueueJob } from '../../jobs/queue.ts';
 import { jobRunnerFor, type JobRunner } from '../../jobs/runner.ts';
+import { runOnWorker } from '../../jobs/worker-thread.ts';
 import { ensureMachine, type AssemblyRow, type SectionRow } from '../machine/machine.repository.ts';
 import { LOOSE_ASSEMBLY_ID, loadSplitSource, type SplitSource } from './split-input.ts';
 import { splitLimits } from './split-limits.ts';
@@ -72,39 +70,6 @@ export function resultView(result: SplitResult, limits: SplitLimits, numbers: Re
   };
 }
 
-/**
- * Runs split.worker.ts on a worker thread with tsx's loader registered first, like the jobs module's
- * runOnWorker; tsx is found with createRequire rather than import.meta.resolve, which the test runner's
- * module loader (where the browser tests start the app) does not offer.
- */
-function runSplitWorker(moduleUrl: URL, workerData: unknown, onMessage: (msg: { type: string; [k: string]: unknown }) => void, timeoutMs: number): Promise<SplitResult> {
-  // The ESM entry as tsx's own exports map names it (its CommonJS entry cannot register the ESM loader).
-  const require = createRequire(import.meta.url);
-  const pkgPath = require.resolve('tsx/package.json');
-  const pkg = require(pkgPath) as { exports: Record<string, { import: { default: string } }> };
-  const tsx = new URL(pkg.exports['./esm/api'].import.default, pathToFileURL(pkgPath)).href;
-  const boot = `import(${JSON.stringify(tsx)}).then((m) => { m.register(); return import(${JSON.stringify(moduleUrl.href)}); });`;
-  return new Promise<SplitResult>((resolve, reject) => {
-    const worker = new Worker(boot, { eval: true, workerData });
-    let settled = false;
-    const finish = (fn: () => void) => {
-      if (settled) return;
-      settled = true;
-      clearTimeout(timer);
-      fn();
-      void worker.terminate();
-    };
-    const timer = setTimeout(() => finish(() => reject(new Error(`The advisor ran longer than ${Math.round(timeoutMs / 1000)} s and was stopped.`))), timeoutMs);
-    worker.on('message', (msg: { type: string; [k: string]: unknown }) => {
-      if (msg?.type === 'done') finish(() => resolve(msg.value as SplitResult));
-      else if (msg?.type === 'error') finish(() => reject(new Error(String(msg.message))));
-      else onMessage(msg);
-    });
-    worker.on('error', (err) => finish(() => reject(err)));
-    worker.on('exit', (code) => finish(() => reject(new Error(`The advisor stopped (exit code ${code}) before it finished.`))));
-  });
-}
-
 /** Registers the job handler once per app (the runner keeps one handler per kind). */
 export function splitRunner(db: Knex, log: Logger): JobRunner {
   const runner = jobRunnerFor(db, log);
@@ -117,7 +82,7 @@ export function splitRunner(db: Knex, log: Logger): JobRunner {
       await db('split_runs').where({ id: runId }).update({ status: 'running', error: null, updated_at: db.fn.now() });
       const limits = run.limits.limits as SplitLimits;
       let lastWrite = 0;
-      const result = await runSplitWorker(
+      const result = await runOnWorker<SplitResult>(
         new URL('./split.worker.ts', import.meta.url),
         { assemblies: run.input.assemblies, parts: run.input.parts, limits, options: { seed: run.options.seed, timeLimitMs: run.options.timeLimitMs, maxProposals: run.options.maxProposals, maxIterations: 1e9 } },
         (msg) => {
