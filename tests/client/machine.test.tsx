@@ -1,4 +1,4 @@
-import { fireEvent, screen, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { massProperties } from '../../src/domain/mass/index.ts';
 import type { MassPropertiesInput } from '../../src/domain/contracts/mass.ts';
@@ -113,6 +113,56 @@ describe('machine screen: section cards', { timeout: 30_000 }, () => {
     fakeApi({ ...sessionRoutes(venueUser), ...machineRoutes() });
     renderApp(`/p/${ORRERY}/machine`);
     expect(await screen.findByText('This screen is not part of your role')).toBeTruthy();
+  });
+});
+
+describe('machine screen: editing a section someone else saved meanwhile', { timeout: 30_000 }, () => {
+  const patchKey = `PATCH /api/productions/${ORRERY}/machine/sections/${S1}`;
+  const theirs = { id: S1, code: 'S1', name: 'Drive core (theirs)', marginPercent: 8, cogUncertaintyMm: null, sortOrder: 0, version: 2 };
+
+  it('shows their version beside mine, and "Keep mine" saves only my change on top of theirs', async () => {
+    const api = fakeApi({
+      ...sessionRoutes(planner),
+      ...machineRoutes(),
+      [patchKey]: (call) =>
+        (call.body as { version: number }).version === 1
+          ? { status: 409, body: { error: { code: 'conflict', message: 'Someone else saved this in the meantime.', current: theirs } } }
+          : { body: { section: { ...theirs, ...(call.body as object), version: 3 } } },
+    });
+    renderApp(`/p/${ORRERY}/machine`);
+    await screen.findByRole('heading', { name: /^S1/ });
+    fireEvent.click(within(card('S1')).getByRole('button', { name: 'Edit' }));
+    const form = await screen.findByRole('form', { name: 'Edit section S1' });
+    fireEvent.change(within(form).getByLabelText('Name'), { target: { value: 'Drive core (mine)' } });
+    fireEvent.click(within(form).getByRole('button', { name: 'Save section' }));
+
+    const notice = await within(form).findByRole('alert');
+    expect(within(notice).getByText('Someone else saved this section while you were editing')).toBeTruthy();
+    expect(within(notice).getByRole('row', { name: /Name/ }).textContent).toContain('Drive core (theirs)');
+    expect(within(notice).getByRole('row', { name: /Name/ }).textContent).toContain('Drive core (mine)');
+    // Their margin differs from what this person sees too; it is shown, and keeping mine will not undo it.
+    expect(within(notice).getByRole('row', { name: /Margin/ }).textContent).toContain('8');
+    expect((within(form).getByLabelText('Name') as HTMLInputElement).value).toBe('Drive core (mine)');
+
+    fireEvent.click(within(notice).getByRole('button', { name: 'Keep mine' }));
+    await waitFor(() => expect(api.callsTo(patchKey)).toHaveLength(2));
+    expect(api.callsTo(patchKey)[0].body).toEqual({ version: 1, name: 'Drive core (mine)' });
+    expect(api.callsTo(patchKey)[1].body).toEqual({ version: 2, name: 'Drive core (mine)' });
+  });
+
+  it('"Reload their version" puts their values in the form and saves nothing', async () => {
+    const api = fakeApi({ ...sessionRoutes(planner), ...machineRoutes(), [patchKey]: { status: 409, body: { error: { code: 'conflict', message: 'Stale.', current: theirs } } } });
+    renderApp(`/p/${ORRERY}/machine`);
+    await screen.findByRole('heading', { name: /^S1/ });
+    fireEvent.click(within(card('S1')).getByRole('button', { name: 'Edit' }));
+    const form = await screen.findByRole('form', { name: 'Edit section S1' });
+    fireEvent.change(within(form).getByLabelText('Name'), { target: { value: 'Drive core (mine)' } });
+    fireEvent.click(within(form).getByRole('button', { name: 'Save section' }));
+    fireEvent.click(await within(form).findByRole('button', { name: 'Reload their version' }));
+    await waitFor(() => expect((within(form).getByLabelText('Name') as HTMLInputElement).value).toBe('Drive core (theirs)'));
+    expect((within(form).getByLabelText('Margin (%)') as HTMLInputElement).value).toBe('8');
+    expect(within(form).queryByRole('alert')).toBeNull();
+    expect(api.callsTo(patchKey)).toHaveLength(1);
   });
 });
 

@@ -8,3 +8,4 @@ export { ErrorState } from './error-state.tsx';
 export { PageHeader } from './page-header.tsx';
 export { PageLoading, Spinner } from './spinner.tsx';
 export { Logo } from './logo.tsx';
+export { StaleSaveAlert, type StaleField } from './stale-save-alert.tsx';

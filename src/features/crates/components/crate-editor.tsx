@@ -1,11 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { CrateView, UpdateCrateBody } from '@domain/contracts/crate-loads.ts';
-import { Alert, Button, Card, CheckboxField, EmptyState, ErrorState, PageHeader, PageLoading, TextField } from '../../../components/ui/index.ts';
+import { Alert, Button, Card, CheckboxField, EmptyState, ErrorState, PageHeader, PageLoading, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
 import { apiFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
-import { useUnits } from '../../../lib/use-units.ts';
+import { useUnits, type Units } from '../../../lib/use-units.ts';
 import { conflictCrate, useAddContent, useCrate, useDeleteContent, useUpdateCrate, type ContentInput } from '../api/crates-api.ts';
 import { CrateFigures } from './crate-figures.tsx';
 import { UnitInput } from './unit-input.tsx';
@@ -39,6 +39,27 @@ function valuesOf(c: CrateView): Values {
     tareKg: c.tareKg,
     clearanceMm: typeof opts.clearanceMm === 'number' ? opts.clearanceMm : 50,
   };
+}
+
+/** Their values beside mine, formatted in the person's units, for the stale-save box. */
+function crateFields(theirs: Values, mine: Values, u: Units): StaleField[] {
+  const yesNo = (b: boolean) => (b ? 'yes' : 'no');
+  const kg = (v: number | null) => (v === null ? 'none' : u.formatMass(v));
+  return [
+    { label: 'Code', theirs: theirs.code, mine: mine.code },
+    { label: 'Name', theirs: theirs.name, mine: mine.name },
+    { label: 'Notes', theirs: theirs.notes, mine: mine.notes },
+    { label: 'Outer size', theirs: theirs.outerMm.map((v) => u.formatLength(v)).join(' × '), mine: mine.outerMm.map((v) => u.formatLength(v)).join(' × ') },
+    { label: 'Tare', theirs: kg(theirs.tareKg), mine: kg(mine.tareKg) },
+    { label: 'Clearance', theirs: theirs.clearanceMm === null ? 'none' : u.formatLength(theirs.clearanceMm), mine: mine.clearanceMm === null ? 'none' : u.formatLength(mine.clearanceMm) },
+    { label: 'Stackable', theirs: yesNo(theirs.stackable), mine: yesNo(mine.stackable) },
+    { label: 'This way up', theirs: yesNo(theirs.thisWayUp), mine: yesNo(mine.thisWayUp) },
+    { label: 'Fragile', theirs: yesNo(theirs.fragile), mine: yesNo(mine.fragile) },
+    { label: 'May tilt', theirs: yesNo(theirs.mayTilt), mine: yesNo(mine.mayTilt) },
+    { label: 'ISPM 15 needed', theirs: yesNo(theirs.ispm15Required), mine: yesNo(mine.ispm15Required) },
+    { label: 'Max load on top', theirs: kg(theirs.maxLoadOnTopKg), mine: kg(mine.maxLoadOnTopKg) },
+    { label: 'Max gross', theirs: kg(theirs.maxGrossKg), mine: kg(mine.maxGrossKg) },
+  ];
 }
 
 /** Only what changed, so a save never undoes someone else's other edits. */
@@ -83,22 +104,19 @@ function CrateEditor({ productionId, crate }: { productionId: string; crate: Cra
         description={crate.kind === 'designed' ? 'Designed around a section: size and tare follow from the design.' : crate.kind === 'pallet' ? 'A pallet: set the loaded height as its outer height.' : 'A stock case.'}
       />
       {theirs && (
-        <Alert
-          tone="caution"
+        <StaleSaveAlert
           title="Someone else saved this crate while you were editing"
-          actions={
-            <>
-              <Button variant="secondary" onClick={() => { setBase(theirs); setValues(valuesOf(theirs)); update.reset(); }}>
-                Reload their version
-              </Button>
-              <Button onClick={() => save(theirs)} loading={update.isPending}>
-                Keep mine
-              </Button>
-            </>
-          }
-        >
-          Their version is {theirs.version}; yours started from {base.version}.
-        </Alert>
+          busy={update.isPending}
+          fields={crateFields(valuesOf(theirs), values, u)}
+          note="Keep mine saves only the fields you changed, on top of their version."
+          onReload={() => {
+            setBase(theirs);
+            setValues(valuesOf(theirs));
+            setErrors({});
+            update.reset();
+          }}
+          onKeepMine={() => save(theirs)}
+        />
       )}
       <div className="grid gap-5 xl:grid-cols-2">
         <Card title="Crate">

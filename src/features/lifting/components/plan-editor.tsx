@@ -2,7 +2,7 @@ import { lazy, Suspense, useMemo, useState, type FormEvent, type ReactNode } fro
 import { evaluatePlanFields, liftPlanFields, type GearView, type HangingPointView, type LiftingSettingsView, type LiftLoadView, type LiftPlanFields, type LiftPlanFieldsInput } from '@domain/contracts/lifting-api.ts';
 import type { GearItem } from '@domain/contracts/lifting.ts';
 import { gearUsableOn } from '@domain/lifting/index.ts';
-import { Alert, Button, Card, CheckboxField, SelectField, Spinner, TextField, controlClasses } from '../../../components/ui/index.ts';
+import { Alert, Button, Card, CheckboxField, SelectField, Spinner, StaleSaveAlert, TextField, controlClasses, type StaleField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { PlanResultView } from './plan-result.tsx';
@@ -31,6 +31,29 @@ export interface PlanEditorProps {
   onSave: (fields: LiftPlanFields) => void;
   /** Extra buttons next to save (discard, cancel). */
   actions?: ReactNode;
+  /** The save was refused as stale: someone else saved the plan meanwhile (their inputs). */
+  stale?: { theirs: LiftPlanFields; note?: ReactNode; onReload: () => void; onKeepMine: (mine: LiftPlanFields) => void };
+}
+
+/** The plan's inputs as a person reads them, for the stale-save box. */
+function planFields(theirs: LiftPlanFields, mine: LiftPlanFieldsInput, ctx: PlanEditorContext): StaleField[] {
+  const section = (id: string) => ctx.loads.find((l) => l.sectionId === id)?.code ?? 'another section';
+  const venue = (id: string | null | undefined) => (id ? (ctx.hangingPoints.find((p) => p.venueId === id)?.venueName ?? 'another venue') : 'none');
+  const mm = (v: number | null | undefined) => (v === null || v === undefined ? 'default' : `${v} mm`);
+  const picks = (pp: LiftPlanFieldsInput['pickPoints']) => pp.map((p) => `${p.id} (${p.positionMm.join(', ')})`).join('; ');
+  return [
+    { label: 'Title', theirs: theirs.title, mine: mine.title },
+    { label: 'Section', theirs: section(theirs.sectionId), mine: section(mine.sectionId) },
+    { label: 'Venue', theirs: venue(theirs.venueId), mine: venue(mine.venueId) },
+    { label: 'Lift date', theirs: theirs.liftDate, mine: mine.liftDate },
+    { label: 'Suspension', theirs: theirs.suspension.kind, mine: mine.suspension.kind },
+    { label: 'Pick points (mm)', theirs: picks(theirs.pickPoints), mine: picks(mine.pickPoints) },
+    { label: 'People below', theirs: theirs.peopleBelow ? 'yes' : 'no', mine: mine.peopleBelow ? 'yes' : 'no' },
+    { label: 'CoG uncertainty', theirs: mm(theirs.cogUncertaintyMm), mine: mm(mine.cogUncertaintyMm) },
+    { label: 'Exclusion margin', theirs: mm(theirs.exclusionMarginMm), mine: mm(mine.exclusionMarginMm) },
+    { label: 'Largest tilt', theirs: theirs.maxTiltDeg === null ? 'not checked' : `${theirs.maxTiltDeg}°`, mine: mine.maxTiltDeg == null ? 'not checked' : `${mine.maxTiltDeg}°` },
+    { label: 'Method statement', theirs: theirs.method, mine: mine.method ?? '' },
+  ];
 }
 
 /** A sensible first plan for a section: two pick points either side of the CoG at the top of its box, one hook. */
@@ -117,7 +140,7 @@ function HangingPointFields({ value, onChange, points, venueId }: { value: Hangi
  * The lift plan form with an instant preview: the same core function the server runs, on the same
  * input (evaluatePlanFields), so what the person sees while typing is what the server will save.
  */
-export function PlanEditor({ ctx, initial, saving, saveLabel, error, onSave, actions }: PlanEditorProps) {
+export function PlanEditor({ ctx, initial, saving, saveLabel, error, onSave, actions, stale }: PlanEditorProps) {
   const units = useUnits();
   const [draft, setDraft] = useState<LiftPlanFieldsInput>(() => initial ?? starterPlan(ctx.loads.find((l) => l.massKg !== null) ?? ctx.loads[0], ctx.gear));
   const [show3d, setShow3d] = useState(false);
@@ -291,7 +314,17 @@ export function PlanEditor({ ctx, initial, saving, saveLabel, error, onSave, act
             </label>
           </div>
         </Card>
-        {error !== undefined && error !== null && (
+        {stale && (
+          <StaleSaveAlert
+            title="Someone else saved this plan while you were editing"
+            fields={planFields(stale.theirs, draft, ctx)}
+            busy={saving}
+            note={stale.note}
+            onReload={stale.onReload}
+            onKeepMine={() => parsed.success && stale.onKeepMine(parsed.data)}
+          />
+        )}
+        {!stale && error !== undefined && error !== null && (
           <Alert tone="danger" title="Could not save">
             {errorMessage(error)}
           </Alert>

@@ -155,19 +155,39 @@ export function PlanPage() {
   );
 }
 
-/** The plan form for an existing plan; its data loads only when the person edits. */
+/**
+ * The plan form for an existing plan; its data loads only when the person edits. A save carries the version the
+ * edit started from; when someone saved in between, the editor shows both versions and the person reloads theirs
+ * (the form starts again from it) or keeps their own (saved on top of theirs).
+ */
 function EditPlan({ productionId, plan, onDone }: { productionId: string; plan: LiftPlanView; onDone: () => void }) {
   const { ctx, error } = useEditorContext(productionId);
   const save = useSavePlan(productionId);
+  const [base, setBase] = useState(plan);
+  const theirs = planConflict(save.error);
   if (!ctx) return error ? <ErrorState error={error} /> : <PageLoading />;
   return (
     <PlanEditor
+      key={base.version}
       ctx={ctx}
-      initial={plan.inputs}
+      initial={base.inputs}
       saving={save.isPending}
-      saveLabel={plan.status === 'approved' ? 'Save (withdraws the approval)' : plan.status === 'draft' ? 'Save' : 'Save (returns it to draft)'}
+      saveLabel={base.status === 'approved' ? 'Save (withdraws the approval)' : base.status === 'draft' ? 'Save' : 'Save (returns it to draft)'}
       error={save.error}
-      onSave={(inputs) => save.mutate({ id: plan.id, version: plan.version, inputs }, { onSuccess: onDone })}
+      onSave={(inputs) => save.mutate({ id: base.id, version: base.version, inputs }, { onSuccess: onDone })}
+      stale={
+        theirs
+          ? {
+              theirs: theirs.inputs,
+              note: theirs.status === 'draft' ? null : `Their version is ${theirs.status}; keeping yours returns it to draft${theirs.status === 'approved' ? ' and withdraws the approval' : ''}.`,
+              onReload: () => {
+                setBase(theirs);
+                save.reset();
+              },
+              onKeepMine: (inputs) => save.mutate({ id: theirs.id, version: theirs.version, inputs }, { onSuccess: onDone }),
+            }
+          : undefined
+      }
       actions={
         <Button variant="ghost" onClick={onDone}>
           Cancel

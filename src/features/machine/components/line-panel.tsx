@@ -2,7 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { partLineView, updatePartLineBody, type BreakdownLineView, type MaterialView, type PartLineView } from '@domain/contracts/machine.ts';
 import { MASS_SOURCES, type MassSource } from '@domain/contracts/mass.ts';
 import { fromKg, fromMm, toKg, toMm } from '@domain/units.ts';
-import { Alert, Button, Card, SelectField, TextField } from '../../../components/ui/index.ts';
+import { Alert, Button, Card, SelectField, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { apiFieldErrors, fieldError, formLevelError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useUnits } from '../../../lib/use-units.ts';
@@ -16,6 +16,18 @@ interface Values {
   massSource: MassSource | '';
   material: string;
   cog: [string, string, string];
+}
+
+/** Their values beside mine, as typed, for the stale-save box. */
+function staleFields(theirs: Values, mine: Values, massUnit: string, lengthUnit: string): StaleField[] {
+  return [
+    { label: 'Name', theirs: theirs.name, mine: mine.name },
+    { label: 'Quantity', theirs: theirs.quantity, mine: mine.quantity },
+    { label: `Unit mass (${massUnit})`, theirs: theirs.unitMass || 'not known', mine: mine.unitMass || 'not known' },
+    { label: 'Mass source', theirs: theirs.massSource || 'none', mine: mine.massSource || 'none' },
+    { label: 'Material', theirs: theirs.material || 'none', mine: mine.material || 'none' },
+    { label: `CoG (${lengthUnit})`, theirs: theirs.cog.join(', '), mine: mine.cog.join(', ') },
+  ];
 }
 
 const num = (v: number | null, digits = 6) => (v === null ? '' : String(Math.round(v * 10 ** digits) / 10 ** digits));
@@ -107,22 +119,13 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
       ) : (
         <form noValidate onSubmit={submit} className="flex flex-col gap-4">
           {theirs?.success && (
-            <Alert
-              tone="caution"
-              title="Someone else saved this line meanwhile"
-              actions={
-                <>
-                  <Button size="sm" variant="secondary" onClick={() => (setBase(theirs.data), setValues(valuesOf(theirs.data)), change.reset())}>
-                    Reload theirs
-                  </Button>
-                  <Button size="sm" onClick={() => save(theirs.data.version)}>
-                    Keep mine
-                  </Button>
-                </>
-              }
-            >
-              Theirs: {theirs.data.name}, {theirs.data.quantity} × {theirs.data.unitMassKg === null ? 'no mass' : u.formatMass(theirs.data.unitMassKg, 3)}.
-            </Alert>
+            <StaleSaveAlert
+              title="Someone else saved this line while you were editing"
+              busy={change.isPending}
+              fields={staleFields(valuesOf(theirs.data), values, u.massUnit, u.lengthUnit)}
+              onReload={() => (setBase(theirs.data), setValues(valuesOf(theirs.data)), setErrors({}), change.reset())}
+              onKeepMine={() => save(theirs.data.version)}
+            />
           )}
           {problem && <Alert tone="danger">{problem}</Alert>}
           {saved && <Alert tone="ok">Saved.</Alert>}

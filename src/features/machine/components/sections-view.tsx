@@ -1,6 +1,8 @@
 import { lazy, Suspense, useState } from 'react';
-import type { MachineMassView, MachineSummaryView } from '@domain/contracts/machine.ts';
-import { Button, Card, EmptyState, ErrorState, PageLoading } from '../../../components/ui/index.ts';
+import type { MachineMassView, MachineSummaryView, SectionView } from '@domain/contracts/machine.ts';
+import { Alert, Button, Card, EmptyState, ErrorState, PageLoading } from '../../../components/ui/index.ts';
+import { errorMessage } from '../../../lib/api.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { SectionCard } from './section-card.tsx';
 import { MovePanel } from './move-panel.tsx';
@@ -26,6 +28,7 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
   const [viewing, setViewing] = useState<string | null>(null);
   const [moving, setMoving] = useState(false);
   const [adding, setAdding] = useState(false);
+  const [editing, setEditing] = useState<string | null>(null);
   const sections = summary.sections;
 
   return (
@@ -74,13 +77,23 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
                         3D view
                       </Button>
                       {mayEdit && (
-                        <Button size="sm" variant="ghost" onClick={() => setWeighing(weighing === s.id ? null : s.id)}>
-                          Record weighing
-                        </Button>
+                        <>
+                          <Button size="sm" variant="ghost" onClick={() => setEditing(editing === s.id ? null : s.id)}>
+                            Edit
+                          </Button>
+                          <Button size="sm" variant="ghost" onClick={() => setWeighing(weighing === s.id ? null : s.id)}>
+                            Record weighing
+                          </Button>
+                        </>
                       )}
                     </>
                   }
                 />
+                {editing === s.id && mayEdit && (
+                  <Card title={`Edit section ${s.code}`} actions={<DeleteSection productionId={productionId} section={s} onDone={() => setEditing(null)} />}>
+                    <SectionForm productionId={productionId} section={s} onDone={() => setEditing(null)} />
+                  </Card>
+                )}
                 <AddOnsPanel productionId={productionId} sectionId={s.id} addOns={summary.addOns.filter((a) => a.sectionId === s.id)} mayEdit={mayEdit} />
                 {viewing === s.id && (
                   <Card
@@ -107,6 +120,32 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
           })}
         </div>
       )}
+    </div>
+  );
+}
+
+/** Deleting a section asks once more; its assemblies and lines become loose parts, its add-ons and weighings go. */
+function DeleteSection({ productionId, section, onDone }: { productionId: string; section: SectionView; onDone: () => void }) {
+  const [asking, setAsking] = useState(false);
+  const change = useMachineChange(productionId);
+  if (!asking)
+    return (
+      <Button size="sm" variant="ghost" onClick={() => setAsking(true)}>
+        Delete section
+      </Button>
+    );
+  return (
+    <div className="flex flex-col items-end gap-2">
+      {change.isError && <Alert tone="danger">{errorMessage(change.error)}</Alert>}
+      <p className="text-sm text-ink-800">Delete {section.code}? Its assemblies and lines become loose parts; its add-ons and weighings are deleted.</p>
+      <div className="flex gap-2">
+        <Button size="sm" variant="danger" loading={change.isPending} onClick={() => change.mutate({ kind: 'deleteSection', id: section.id }, { onSuccess: onDone })}>
+          Delete {section.code}
+        </Button>
+        <Button size="sm" variant="ghost" onClick={() => setAsking(false)}>
+          Keep it
+        </Button>
+      </div>
     </div>
   );
 }
