@@ -61,6 +61,9 @@ describe('production switcher', () => {
     await nav.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL(/\/p\/[^/]+\/settings$/);
     const before = new URL(page.url()).pathname.split('/')[2];
+    // The settings screen has loaded its production (no navigation still pending) before the switch.
+    const name = page.getByRole('textbox', { name: 'Production name' });
+    await expect.poll(() => name.inputValue(), { timeout: 20_000 }).toMatch(/European and Canadian tour/i);
     const switcher = page.getByLabel('Production', { exact: true });
     // Other tests may add productions; the demo planner's second one is the workshop rebuild.
     const options = await switcher.locator('option').evaluateAll((os) => os.map((o) => ({ value: (o as HTMLOptionElement).value, text: o.textContent ?? '' })));
@@ -68,7 +71,6 @@ describe('production switcher', () => {
     expect(other).not.toBe(before);
     await switcher.selectOption(other);
     await page.waitForURL(new RegExp(`/p/${other}/settings$`));
-    const name = page.getByRole('textbox', { name: 'Production name' });
     await expect.poll(() => name.inputValue(), { timeout: 10_000 }).toMatch(/workshop rebuild/i);
     await context.close();
   });
