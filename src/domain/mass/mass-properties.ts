@@ -292,13 +292,17 @@ function rotateOwnInertia(): void {
     RI[3 * i + 1] = a * xy + b * yy + c * yz;
     RI[3 * i + 2] = a * zx + b * yz + c * zz;
   }
-  const out = (i: number, j: number): number => RI[3 * i] * R9[3 * j] + RI[3 * i + 1] * R9[3 * j + 1] + RI[3 * i + 2] * R9[3 * j + 2];
   rotInertia[0] = out(0, 0);
   rotInertia[1] = out(1, 1);
   rotInertia[2] = out(2, 2);
   rotInertia[3] = out(0, 1);
   rotInertia[4] = out(1, 2);
   rotInertia[5] = out(2, 0);
+}
+
+/** (R I Rᵀ)_ij from RI = R·I and R9. A module-level function, not a closure: it runs per turned instance. */
+function out(i: number, j: number): number {
+  return RI[3 * i] * R9[3 * j] + RI[3 * i + 1] * R9[3 * j + 1] + RI[3 * i + 2] * R9[3 * j + 2];
 }
 
 /** worldBox = axis-aligned box around the local box turned by R9 and moved by p (centre and |R|·half size). */
@@ -605,7 +609,7 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
     }
     const hasBox = acc[o + BMINX] <= acc[o + BMAXX];
     const w = acc[o + KG_WEIGHED], ca = acc[o + KG_CATALOGUE], cad = acc[o + KG_CAD], est = acc[o + KG_ESTIMATED];
-    const pct = (v: number): number => (m > 0 ? (v / m) * 100 : 0);
+    const toPct = m > 0 ? 100 / m : 0;
     const gl = nodeGaps[g];
     return {
       id,
@@ -621,9 +625,9 @@ export function massProperties(input: MassPropertiesInput): MassPropertiesResult
         cadKg: cad,
         estimatedKg: est,
         weighedOrCatalogueKg: w + ca,
-        weighedOrCataloguePercent: pct(w + ca),
-        cadPercent: pct(cad),
-        estimatedPercent: pct(est),
+        weighedOrCataloguePercent: (w + ca) * toPct,
+        cadPercent: cad * toPct,
+        estimatedPercent: est * toPct,
       },
       lineCount: acc[o + LINES],
       unitCount: acc[o + UNITS],
