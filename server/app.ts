@@ -17,6 +17,7 @@ import { mountRoutes, type RouteDef } from './http/routes.ts';
 import { jsonGuard } from './http/json-guard.ts';
 import { createPassport, loadActor } from './modules/auth/passport.ts';
 import { createSignInLimiter, type SignInLimiter } from './modules/auth/sign-in-limiter.ts';
+import { throttleTouch } from './modules/auth/session-touch.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
 import { healthRoutes } from './modules/health/health.routes.ts';
 import { productionRoutes } from './modules/productions/productions.routes.ts';
@@ -125,7 +126,8 @@ export function createApp(base: BaseDeps): express.Express {
     '/api',
     session({
       name: deps.sessionCookieName,
-      store: new PgStore({ pool: base.sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60, errorLog: (...args: unknown[]) => log.warn({ detail: args.map(String) }, 'session store error') }),
+      // The stored expiry moves forward at most once a minute per session (session-touch.ts).
+      store: throttleTouch(new PgStore({ pool: base.sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60, errorLog: (...args: unknown[]) => log.warn({ detail: args.map(String) }, 'session store error') }), 60_000),
       secret: config.SESSION_SECRET,
       resave: false,
       saveUninitialized: false,
