@@ -20,7 +20,7 @@ class CountingStore extends Store {
     this.destroys++;
     cb?.();
   }
-  touch(_sid: string, _s: SessionData, cb?: (err?: unknown) => void) {
+  override touch(_sid: string, _s: SessionData, cb?: (err?: unknown) => void) {
     this.touches++;
     const err = this.fail ? new Error('database down') : undefined;
     this.fail = false;
