@@ -39,8 +39,8 @@ export function loadActor(db: Knex): RequestHandler {
     try {
       const ref = req.user as SessionUserRef | undefined;
       if (ref?.id) {
-        const user = await users.findById(ref.id);
-        if (user?.active) req.actor = toActor(user, await users.memberships(user.id));
+        const found = await users.findWithMemberships(ref.id);
+        if (found?.user.active) req.actor = toActor(found.user, found.memberships);
       }
       next();
     } catch (err) {

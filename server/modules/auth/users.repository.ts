@@ -36,6 +36,23 @@ export function usersRepository(db: Knex) {
         .orderBy('p.name')
         .select('m.production_id', 'p.name as production_name', 'p.paper_size', 'm.role', 'm.venue_ids');
     },
+    /**
+     * The person and their memberships in one round trip (every signed-in request loads them, so that a
+     * role change applies at once): the same rows as findById and memberships.
+     */
+    async findWithMemberships(id: string): Promise<{ user: UserRow; memberships: MembershipRow[] } | undefined> {
+      const { rows } = (await db.raw(
+        `select u.*, coalesce((select json_agg(json_build_object('production_id', m.production_id, 'production_name', p.name, 'paper_size', p.paper_size,
+                                                            'role', m.role, 'venue_ids', m.venue_ids) order by p.name)
+                                 from memberships m join productions p on p.id = m.production_id
+                                where m.user_id = u.id), '[]'::json) as memberships_json
+           from users u where u.id = ?`,
+        [id],
+      )) as { rows: (UserRow & { memberships_json: MembershipRow[] })[] };
+      if (!rows[0]) return undefined;
+      const { memberships_json: memberships, ...user } = rows[0];
+      return { user, memberships };
+    },
     async setUnits(id: string, units: 'metric' | 'imperial'): Promise<void> {
       await db('users').where({ id }).update({ units, updated_at: db.fn.now(), version: db.raw('version + 1') });
     },
