@@ -32,6 +32,7 @@ import { loadRoutes } from './modules/loads/loads.routes.ts';
 import { splitRoutes } from './modules/split/split.routes.ts';
 import { impactRoutes } from './modules/impact/impact.routes.ts';
 import { documentRoutes } from './modules/documents/documents.routes.ts';
+import { archiveRoutes } from './modules/archive/archive.routes.ts';
 
 export interface AppDeps {
   config: Config;
@@ -65,6 +66,7 @@ function modules(deps: AppDeps): [string, RouteDef[]][] {
     ['/api/productions/:productionId/split', splitRoutes(deps)],
     ['/api/productions/:productionId/impact', impactRoutes(deps)],
     ['/api/productions/:productionId/documents', documentRoutes(deps)],
+    ['/api', archiveRoutes(deps)],
   ];
 }
 

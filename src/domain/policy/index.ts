@@ -49,6 +49,8 @@ export const ACTIONS = [
   // company-wide
   'people.manage',
   'mail.read',
+  /** Export a whole production as one archive file, and restore one into this instance. */
+  'production.archive',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -91,7 +93,7 @@ const ROLE_ACTIONS: Record<ProductionRole, ReadonlySet<Action>> = {
 };
 
 /** Actions that need no production: company-wide rights of admins. */
-const ADMIN_ACTIONS: ReadonlySet<Action> = new Set<Action>(['people.manage', 'mail.read']);
+const ADMIN_ACTIONS: ReadonlySet<Action> = new Set<Action>(['people.manage', 'mail.read', 'production.archive']);
 
 /** Company-wide actions are decided by the admin flag alone, whatever production they name. */
 export function isCompanyAction(action: Action): boolean {
