@@ -131,6 +131,44 @@ describe('packing runs', () => {
     await patch(rigger, `/runs/${(res.body.run as { id: string }).id}/placements`, { version: run.version + 1, vehicleId: vehicle.id, placements: pinned }).expect(403);
   });
 
+  it('moves a nose-heavy load back along the trailer so the kingpin is within its limit, and says what to block', async () => {
+    // Four 3,500 kg cases, 1,200 × 1,000 × 1,000 mm, not stackable: the search puts them two by two against the
+    // front wall, CoG about x = 1,200 mm, and the kingpin would carry 2,600 + 14,000 × (8,900 − 1,200) / 7,700 =
+    // 16,600 kg of its 12,000 kg. Within it needs x ≥ 8,900 − 9,400 × 7,700 / 14,000 = 3,730 mm
+    // [COMP, two-support statics; trailer figures from src/domain/vehicles/road.ts, PRACTICE].
+    const codes = [1, 2, 3, 4].map((i) => `HV${i}-${tag}`);
+    const ids: string[] = [];
+    for (const code of codes) {
+      const r = await planner.post(`/api/productions/${pid}/crates`).set('x-csrf-token', planner.csrf).send({ code, kind: 'stock', outerMm: [1200, 1000, 1000], tareKg: 3500, stackable: false });
+      expect(r.status, JSON.stringify(r.body)).toBe(201);
+      ids.push(r.body.crate.id);
+    }
+    try {
+      const tr = ((await planner.get(`${base()}/vehicles`).expect(200)).body.vehicles as { id: string; code: string }[]).find((v) => v.code === 'TR1')!;
+      const res = await post(planner, '/runs', { name: `Heavy ${tag}`, vehicleIds: [tr.id], crates: ids.map((crateId) => ({ crateId, stopIndex: 0 })), timeLimitMs: 500 }).expect(202);
+      const run = (await waitForRun(res.body.run.id)) as never as {
+        input: { vehicles: (Vehicle & { id: string })[]; items: { id: string; massKg: number; lengthMm: number; widthMm: number; heightMm: number; quantity: number; orientation: 'upright' | 'any' }[] };
+        result: { placements: { id: string; vehicleId: string; xMm: number; yMm: number; zMm: number; lengthMm: number; widthMm: number; heightMm: number }[]; unplaced: unknown[] };
+        figures: { vehicles: { steering?: { alongMm: number; frontGapMm: number; withinLimitsBefore: boolean; advice: string[] }; loadPlan: { ok: boolean } }[] };
+      };
+      expect(run.result.unplaced).toEqual([]);
+      const vehicle = run.input.vehicles[0];
+      const steering = run.figures.vehicles[0].steering!;
+      expect(steering.withinLimitsBefore).toBe(false);
+      expect(steering.alongMm).toBeGreaterThan(0);
+      expect(steering.advice.join(' ')).toMatch(/block or brace the .* gap at the front wall/);
+      // Independently: the saved placements are valid and the kingpin, by statics at the crates' centres, within limits.
+      expect(validatePacking(vehicle, run.input.items, run.result.placements, { fullSupport: true }).messages).toEqual([]);
+      const plan = checkLoadPlan(vehicle, run.result.placements.map((p) => ({ massKg: 3500, cogMm: [p.xMm + p.lengthMm / 2, p.yMm + p.widthMm / 2, p.zMm + p.heightMm / 2] as [number, number, number] })));
+      expect(plan.axles!.groups[0].totalKg).toBeLessThanOrEqual(12000 + 1e-6);
+      expect(plan.ok).toBe(true);
+      expect(Math.min(...run.result.placements.map((p) => p.xMm))).toBeCloseTo(steering.frontGapMm, 6);
+      expect(run.figures.vehicles[0].loadPlan.ok).toBe(true);
+    } finally {
+      await t.db('crates').whereIn('id', ids).delete();
+    }
+  });
+
   it('names invalid input', async () => {
     const none = await post(planner, '/runs', { name: '', vehicleIds: [], crates: [] }).expect(400);
     const paths = none.body.error.issues.map((i: { path: string }) => i.path);

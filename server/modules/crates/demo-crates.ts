@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { packVehicles } from '../../../src/domain/packing/index.ts';
 import { EU_SEMI_TRAILER, containerVehicle, type Vehicle } from '../../../src/domain/vehicles/index.ts';
 import type { RunItemView } from '../../../src/domain/contracts/crate-loads.ts';
-import { nameUnplaced, packItem, runFigures, type RunVehicle } from '../loads/run-figures.ts';
+import { finishRun, packItem, type RunVehicle } from '../loads/run-figures.ts';
 import { ensureLoadSettings, loadCrates, toCrateView, toLoadSettingsView } from './crates.repository.ts';
 import { designedColumns, sectionForCrate, stockColumns } from './crates.service.ts';
 
@@ -115,10 +115,9 @@ export async function seedDemoCrates(trx: Knex, productionId: string): Promise<v
   const tr = vrows.find((v: { code: string }) => v.code === 'TR1')!;
   const runVehicles: RunVehicle[] = [{ ...tr.spec, id: tr.id, name: tr.name, code: tr.code, vehicleRowId: tr.id }];
   const options = { timeLimitMs: 60_000, fullSupport: true, seed: 1 };
-  const result = await packVehicles(runVehicles, items.map(packItem), { maxIterations: 200, timeLimitMs: options.timeLimitMs, fullSupport: true, seed: 1 });
-  result.unplaced = nameUnplaced(result.unplaced, items);
+  const packed = await packVehicles(runVehicles, items.map(packItem), { maxIterations: 200, timeLimitMs: options.timeLimitMs, fullSupport: true, seed: 1 });
   const runSettings = { airDivisorCm3PerKg: settings.airDivisorCm3PerKg, roadKgPerLoadingMetre: settings.roadKgPerLoadingMetre };
-  const figures = runFigures(runVehicles, items, result.placements, result.unplaced, runSettings, true);
+  const { result, figures } = finishRun(runVehicles, items, packed, runSettings, true);
   await trx('packing_runs').insert({
     production_id: productionId,
     name: 'Leg 1 — Rotterdam to Barcelona, semi-trailer',

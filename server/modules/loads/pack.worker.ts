@@ -1,6 +1,6 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { packVehicles } from '../../../src/domain/packing/index.ts';
-import { nameUnplaced, packItem, runFigures, type RunSettings, type RunVehicle } from './run-figures.ts';
+import { finishRun, packItem, type RunSettings, type RunVehicle } from './run-figures.ts';
 import type { RunItemView } from '../../../src/domain/contracts/crate-loads.ts';
 
 /**
@@ -28,9 +28,8 @@ async function main(): Promise<void> {
       parentPort!.postMessage({ type: 'progress', fraction, best });
     },
   });
-  result.unplaced = nameUnplaced(result.unplaced, input.items);
-  const figures = runFigures(input.vehicles, input.items, result.placements, result.unplaced, input.settings, input.options.fullSupport);
-  parentPort!.postMessage({ type: 'done', value: { result, figures } });
+  // Weight distribution: each vehicle's load is moved within its free space so axle loads and CoG are within limits.
+  parentPort!.postMessage({ type: 'done', value: finishRun(input.vehicles, input.items, result, input.settings, input.options.fullSupport) });
 }
 
 main().catch((e: unknown) => parentPort!.postMessage({ type: 'error', message: e instanceof Error ? e.message : String(e) }));

@@ -1,7 +1,7 @@
 import type { PlacementView, RunFiguresView, RunItemView, VehicleFiguresView } from '../../../src/domain/contracts/crate-loads.ts';
 import { combineMasses, type PointMass } from '../../../src/domain/mass/index.ts';
 import { validatePacking, type PackItem } from '../../../src/domain/packing/index.ts';
-import { airChargeable, checkLoadPlan, roadChargeable, seaChargeable, type Vehicle } from '../../../src/domain/vehicles/index.ts';
+import { airChargeable, checkLoadPlan, roadChargeable, seaChargeable, steerLoad, type Vehicle } from '../../../src/domain/vehicles/index.ts';
 
 type Vec3 = [number, number, number];
 const EPS_MM = 0.5;
@@ -59,6 +59,36 @@ export function placedCogMm(item: RunItemView, p: Pick<PlacementView, 'xMm' | 'y
   return [p.xMm + c[axisFor[0]], p.yMm + c[axisFor[1]], p.zMm + c[axisFor[2]]];
 }
 
+/** How the engine's load was moved in each vehicle to keep its axle loads and CoG within limits. */
+export type Steering = NonNullable<VehicleFiguresView['steering']>;
+
+/**
+ * The packing search fills each vehicle from the front wall; this moves each vehicle's whole load along and
+ * across the bed (the core's steerLoad) so that its axle groups and CoG are within limits where the free
+ * space allows, and says what must be blocked. Support, stacking and load order are unchanged by the move.
+ */
+export function steerPlacements(vehicles: readonly RunVehicle[], items: readonly RunItemView[], placements: readonly PlacementView[]): { placements: PlacementView[]; steering: Map<string, Steering> } {
+  const byId = new Map(items.map((i) => [i.id, i]));
+  const steering = new Map<string, Steering>();
+  const out: PlacementView[] = [];
+  for (const v of vehicles) {
+    const mine = placements.filter((p) => p.vehicleId === v.id);
+    if (mine.length === 0) continue;
+    const s = steerLoad(
+      v,
+      mine.map((p) => {
+        const it = byId.get(p.id);
+        return { xMm: p.xMm, yMm: p.yMm, lengthMm: p.lengthMm, widthMm: p.widthMm, massKg: it?.massKg ?? 0, cogMm: it ? placedCogMm(it, p) : [p.xMm + p.lengthMm / 2, p.yMm + p.widthMm / 2, p.zMm + p.heightMm / 2] };
+      }),
+    );
+    steering.set(v.id, { alongMm: s.alongMm, acrossMm: s.acrossMm, frontGapMm: s.frontGapMm, doorGapMm: s.doorGapMm, withinLimitsBefore: s.before.ok, advice: s.advice });
+    for (const p of mine) out.push({ ...p, xMm: p.xMm + s.alongMm, yMm: p.yMm + s.acrossMm });
+  }
+  const inVehicles = new Set(vehicles.map((v) => v.id));
+  for (const p of placements) if (!inVehicles.has(p.vehicleId)) out.push(p);
+  return { placements: out, steering };
+}
+
 /**
  * The figures of a packing run, every one from the cores: the validator on each vehicle's load,
  * the load-plan check (payload, CoG along and across, axle groups by statics), and chargeable weight for
@@ -71,6 +101,7 @@ export function runFigures(
   unplaced: readonly { id: string; quantity: number }[],
   settings: RunSettings,
   fullSupport: boolean,
+  steering?: ReadonlyMap<string, Steering>,
 ): RunFiguresView {
   const byId = new Map(items.map((i) => [i.id, i]));
   const packItems = items.map(packItem);
@@ -108,6 +139,7 @@ export function runFigures(
       validation,
       loadingMetres: road?.loadingMetres ?? 0,
       crateCogs,
+      ...(steering?.get(v.id) ? { steering: steering.get(v.id) } : {}),
     };
   });
 
@@ -144,4 +176,20 @@ export function runFigures(
     chargeable: { air, road: { ...road, kgPerLoadingMetre: settings.roadKgPerLoadingMetre }, sea },
     ok: unplacedCount === 0 && perVehicle.every((v) => v.validation.ok && (v.itemCount === 0 || v.loadPlan.ok)),
   };
+}
+
+/**
+ * What the engine returned, made ready to save: unplaced crates named by code, each vehicle's load steered for
+ * its axles and CoG, and the run's figures.
+ */
+export function finishRun<R extends { placements: PlacementView[]; unplaced: { id: string; quantity: number; reason: string }[] }>(
+  vehicles: readonly RunVehicle[],
+  items: readonly RunItemView[],
+  result: R,
+  settings: RunSettings,
+  fullSupport: boolean,
+): { result: R; figures: RunFiguresView } {
+  const steered = steerPlacements(vehicles, items, result.placements);
+  const done = { ...result, placements: steered.placements, unplaced: nameUnplaced(result.unplaced, items) };
+  return { result: done, figures: runFigures(vehicles, items, done.placements, done.unplaced, settings, fullSupport, steered.steering) };
 }

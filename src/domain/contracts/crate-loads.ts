@@ -311,6 +311,13 @@ export const vehicleFiguresView = z.object({
   loadingMetres: z.number(),
   /** Each placed crate's CoG in the load space, mm (its own CoG turned as the crate was placed). */
   crateCogs: z.array(z.object({ id: z.string(), cogMm: vec3Mm })).default([]),
+  /**
+   * How the packed load was moved along (+ towards the doors) and across the bed to keep the axle loads and CoG
+   * within limits, the gaps that leaves, and what must be blocked. Absent on a load edited by hand.
+   */
+  steering: z
+    .object({ alongMm: z.number(), acrossMm: z.number(), frontGapMm: z.number(), doorGapMm: z.number(), withinLimitsBefore: z.boolean(), advice: z.array(z.string()) })
+    .optional(),
 });
 export type VehicleFiguresView = z.infer<typeof vehicleFiguresView>;
 

@@ -6,6 +6,7 @@ export { CONTAINER_TYPES, ISO_MAX_GROSS_KG, containerVehicle, type ContainerType
 export { EU_SEMI_TRAILER, RIGID_TRUCK_18T } from './road.ts';
 export { AIR_PALLET_MAIN_DECK } from './air.ts';
 export { customVehicle, vehicleProblems } from './custom.ts';
+export { steerLoad, type LoadSteer, type PlacedMass } from './steer.ts';
 export { axleLoads, checkLoadPlan, twoSupportReactions, type AxleGroupLoad, type AxleLoadResult, type LoadPlanCheck } from './axle-loads.ts';
 export {
   airChargeable,

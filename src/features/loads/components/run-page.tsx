@@ -111,6 +111,15 @@ function VehicleFigures({ f, u, name }: { f: VehicleFiguresView; u: Units; name:
           </tbody>
         </table>
       )}
+      {f.steering && f.steering.advice.length > 0 && (
+        <Alert tone="caution" className="mt-3" title={f.steering.withinLimitsBefore ? 'Load placement' : 'Load moved for the axles and CoG'}>
+          <ul className="list-disc pl-5">
+            {f.steering.advice.map((m) => (
+              <li key={m}>{m}</li>
+            ))}
+          </ul>
+        </Alert>
+      )}
       {(plan.reasons.length > 0 || !f.validation.ok) && (
         <Alert tone="danger" className="mt-3" title="What fails">
           <ul className="list-disc pl-5">
