@@ -27,6 +27,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Settings', path: 'settings', action: 'production.settings.edit', scope: 'production' },
   { label: 'People', path: '/admin/people', action: 'people.manage', scope: 'company' },
   { label: 'Mail', path: '/admin/mail', action: 'mail.read', scope: 'company' },
+  { label: 'Archives', path: '/admin/archives', action: 'production.archive', scope: 'company' },
 ];
 
 export interface NavLinkTarget {

@@ -75,6 +75,7 @@ export const routes: RouteObject[] = [
           },
           screen('admin/people', () => import('./routes/admin-people.tsx')),
           screen('admin/mail', () => import('./routes/admin-mail.tsx')),
+          screen('admin/archives', () => import('./routes/admin-archives.tsx')),
           screen('*', () => import('./routes/not-found.tsx')),
         ],
       },

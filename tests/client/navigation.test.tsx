@@ -61,7 +61,7 @@ describe('navigation fits the role in the current production', () => {
     fakeApi(sessionRoutes(adminWithoutProductions));
     renderApp('/');
     expect(await screen.findByText('You are not on any production yet')).toBeTruthy();
-    expect(await navLinks()).toEqual(['People', 'Mail']);
+    expect(await navLinks()).toEqual(['People', 'Mail', 'Archives']);
     expect(screen.queryByRole('combobox', { name: 'Production' })).toBeNull();
   });
 
@@ -119,7 +119,7 @@ describe('the navigation list is one table filtered by the policy', () => {
     expect(links[0]).toBe(`/p/${ORRERY}`);
     expect(links).toContain(`/p/${ORRERY}/settings`);
     for (const l of links) expect(l).toMatch(new RegExp(`^/p/${ORRERY}(/[a-z-]+)?$`));
-    expect(nav.company.map((l) => l.to)).toEqual(['/admin/people', '/admin/mail']);
+    expect(nav.company.map((l) => l.to)).toEqual(['/admin/people', '/admin/mail', '/admin/archives']);
   });
 
   it('shows no production entries outside a production', () => {
