@@ -105,6 +105,20 @@ describe('parts-list import', () => {
     expect(after[0].version).toBe(before.version + 1);
   });
 
+  it('warns before a re-import drops the placements of a placed line whose quantity changes', async () => {
+    const p2 = await t.db('machine_part_lines').where({ production_id: pid, part_number: 'P-2' }).first();
+    await t.db('machine_part_instances').insert([0, 1, 2, 3].map((seq) => ({ production_id: pid, part_line_id: p2.id, seq, x_mm: seq * 100, y_mm: 0, z_mm: 0 })));
+    const csv = [HEADER, 'P-1,Frame,A1,1,13.0,weighed,steel,0,0,100', 'P-2,Plate,A1,3,2.5,cad,aluminium,1000,0,100', 'P-4,Cover,A2,1,3,estimated,abs,0,0,200'].join('\n');
+    const up = await upload(planner, csv, 'parts-v3.csv').expect(201);
+    const pv = (await preview(up.body.import.id).expect(200)).body.preview;
+    expect(pv.diff.placementsDroppedCount).toBe(1);
+    expect(pv.diff.placementsDropped).toEqual([{ partNumber: 'P-2', assemblyNumber: 'A1', why: 'quantity changes' }]);
+    // Previewing wrote nothing: the placements are still there until the import is applied.
+    expect(await t.db('machine_part_instances').where({ part_line_id: p2.id }).count<{ count: number }[]>('* as count')).toEqual([{ count: 4 }]);
+    await commit(up.body.import.id).expect(200);
+    expect(await t.db('machine_part_instances').where({ part_line_id: p2.id }).count<{ count: number }[]>('* as count')).toEqual([{ count: 0 }]);
+  });
+
   it('round-trips: import → export (CSV and XLSX) → import gives the same breakdown', async () => {
     // A line with formula-like text and negative coordinates, set through the API.
     await planner

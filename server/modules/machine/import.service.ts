@@ -207,6 +207,13 @@ export function presentAnalysis(a: ImportAnalysis) {
         after: Object.fromEntries(c.fields.map((f) => [f, c.after[f]])),
       })),
       removed: diff.removed.slice(0, SHOWN).map(pick),
+      // Lines placed as instances lose their placements when their quantity changes or they go: say so before.
+      placementsDropped: [
+        ...diff.changed.filter((c) => c.before.hasInstances && c.fields.includes('quantity')).map((c) => ({ partNumber: c.key.partNumber, assemblyNumber: c.key.assemblyNumber, why: 'quantity changes' as const })),
+        ...diff.removed.filter((l) => l.hasInstances).map((l) => ({ partNumber: l.partNumber, assemblyNumber: l.assemblyNumber, why: 'line removed' as const })),
+      ].slice(0, SHOWN),
+      placementsDroppedCount:
+        diff.changed.filter((c) => c.before.hasInstances && c.fields.includes('quantity')).length + diff.removed.filter((l) => l.hasInstances).length,
     },
   };
 }

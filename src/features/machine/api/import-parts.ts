@@ -37,6 +37,9 @@ export const importPreview = z.object({
       added: z.array(lineSummary),
       changed: z.array(z.object({ partNumber: z.string(), assemblyNumber: z.string().nullable(), fields: z.array(z.string()), before: z.record(z.string(), z.unknown()), after: z.record(z.string(), z.unknown()) })),
       removed: z.array(lineSummary),
+      /** Lines placed as instances whose placements the import drops (quantity changed, or line removed). */
+      placementsDropped: z.array(z.object({ partNumber: z.string(), assemblyNumber: z.string().nullable(), why: z.enum(['quantity changes', 'line removed']) })).default([]),
+      placementsDroppedCount: z.number().default(0),
     })
     .nullable(),
 });

@@ -338,6 +338,19 @@ function DiffSummary({ diff, newAssemblies }: { diff: NonNullable<ImportPreview[
         Compared with the breakdown now: {formatNumber(diff.addedCount)} added, {formatNumber(diff.changedCount)} changed, {formatNumber(diff.removedCount)} removed, {formatNumber(diff.unchangedCount)} unchanged.
         {newAssemblies.length > 0 && ` New assemblies: ${newAssemblies.join(', ')}.`}
       </p>
+      {diff.placementsDroppedCount > 0 && (
+        <Alert tone="caution" title={`${formatNumber(diff.placementsDroppedCount)} placed line${diff.placementsDroppedCount === 1 ? '' : 's'} will lose their placements`}>
+          <p className="text-sm">Their units fall back to one CoG (flagged approximate) until they are placed again.</p>
+          <ul className="mt-1 max-h-32 overflow-auto text-sm">
+            {diff.placementsDropped.map((d) => (
+              <li key={`${d.assemblyNumber}/${d.partNumber}`}>
+                <span className="font-semibold">{d.partNumber}</span>
+                {d.assemblyNumber ? ` in ${d.assemblyNumber}` : ''}: {d.why}
+              </li>
+            ))}
+          </ul>
+        </Alert>
+      )}
       {diff.changed.length > 0 && (
         <details open>
           <summary className="cursor-pointer font-semibold">Changed lines</summary>
