@@ -368,7 +368,7 @@ export function machineRoutes(deps: AppDeps): RouteDef[] {
         )) as { rows: { subs: number; lines: number }[] };
         const { subs, lines } = rows[0];
         if ((subs > 0 || lines > 0) && req.query.withContents !== 'true') {
-          throw new AppError('conflict', `Assembly ${row.number} holds ${subs} sub-assemblies and ${lines} part lines; delete them with it (withContents=true) or move them first.`);
+          throw new AppError('conflict', `Assembly ${row.number} holds ${subs} sub-assemblies and ${lines} part lines: delete them with it, or move them first.`);
         }
         await db('machine_assemblies').where({ id, production_id: productionId }).delete();
       },

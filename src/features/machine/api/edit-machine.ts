@@ -35,6 +35,7 @@ export type MachineChange =
   | { kind: 'deleteMaterial'; id: string }
   | { kind: 'createAssembly'; body: CreateAssemblyBody }
   | { kind: 'updateAssembly'; id: string; body: UpdateAssemblyBody }
+  | { kind: 'deleteAssembly'; id: string; withContents: boolean }
   | { kind: 'createLine'; body: CreatePartLineBody }
   | { kind: 'updateLine'; id: string; body: UpdatePartLineBody }
   | { kind: 'deleteLine'; id: string }
@@ -70,6 +71,8 @@ export function sendChange(productionId: string, c: MachineChange): Promise<unkn
       return api.post(p('/assemblies'), c.body);
     case 'updateAssembly':
       return api.patch(p(`/assemblies/${id}`), c.body);
+    case 'deleteAssembly':
+      return api.delete(p(`/assemblies/${id}${c.withContents ? '?withContents=true' : ''}`));
     case 'createLine':
       return api.post(p('/lines'), c.body);
     case 'updateLine':

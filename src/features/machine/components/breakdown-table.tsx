@@ -52,6 +52,7 @@ export interface BreakdownTableProps {
   sections: SectionView[];
   mass: MachineMassView | undefined;
   onSelectLine?: (line: BreakdownLineView) => void;
+  onSelectAssembly?: (assembly: AssemblyView) => void;
   selectedLineId?: string | null;
 }
 
@@ -60,7 +61,7 @@ export interface BreakdownTableProps {
  * Sorting and filtering run on the server (5,000+ lines); rows are virtualised and the next page is
  * fetched as the end comes into view, so scrolling stays smooth.
  */
-export function BreakdownTable({ productionId, sections, mass, onSelectLine, selectedLineId }: BreakdownTableProps) {
+export function BreakdownTable({ productionId, sections, mass, onSelectLine, onSelectAssembly, selectedLineId }: BreakdownTableProps) {
   const u = useUnits();
   const [sorting, setSorting] = useState<SortingState>([]);
   const [search, setSearch] = useState('');
@@ -228,7 +229,15 @@ export function BreakdownTable({ productionId, sections, mass, onSelectLine, sel
               if (r.kind === 'assembly') {
                 const m = mass?.assemblies[r.assembly.id];
                 return (
-                  <div key={row.id} role="row" aria-rowindex={vi.index + 2} style={style} className="flex items-center gap-3 border-b border-ink-100 bg-tide-50 px-2 text-sm">
+                  <div
+                    key={row.id}
+                    role="row"
+                    aria-rowindex={vi.index + 2}
+                    aria-selected={selectedLineId === r.assembly.id}
+                    style={style}
+                    className={cx('flex cursor-pointer items-center gap-3 border-b border-ink-100 bg-tide-50 px-2 text-sm hover:bg-tide-100', selectedLineId === r.assembly.id && 'bg-tide-100')}
+                    onClick={() => onSelectAssembly?.(r.assembly)}
+                  >
                     <span role="cell" className="font-semibold text-tide-900" style={{ paddingLeft: `${r.depth * 1}rem` }}>
                       {r.assembly.number} {r.assembly.name}
                     </span>

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { BreakdownLineView } from '@domain/contracts/machine.ts';
+import type { AssemblyView, BreakdownLineView } from '@domain/contracts/machine.ts';
 import { EmptyState, ErrorState, PageHeader, PageLoading } from '../../../components/ui/index.ts';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
 import { cx } from '../../../lib/cx.ts';
@@ -7,6 +7,7 @@ import { useUnits } from '../../../lib/use-units.ts';
 import { useMachine, useMachineMass } from '../api/get-machine.ts';
 import { BreakdownTable } from './breakdown-table.tsx';
 import { LinePanel } from './line-panel.tsx';
+import { AssemblyPanel } from './assembly-panel.tsx';
 import { MaterialsView } from './materials-view.tsx';
 import { SectionsView } from './sections-view.tsx';
 import { ImportExportView } from './import-export-view.tsx';
@@ -29,6 +30,7 @@ export function MachinePage() {
   const mass = useMachineMass(pid);
   const [tab, setTab] = useState<TabId>('sections');
   const [line, setLine] = useState<BreakdownLineView | null>(null);
+  const [assembly, setAssembly] = useState<AssemblyView | null>(null);
 
   if (summary.isPending) return <PageLoading label="Loading the machine…" />;
   if (summary.isError) return <ErrorState title="The machine could not be loaded" error={summary.error} onRetry={() => summary.refetch()} retrying={summary.isFetching} />;
@@ -74,9 +76,17 @@ export function MachinePage() {
             <SectionsView productionId={pid} summary={s} mass={mass.data} mayEdit={mayEdit} />
           ))}
         {tab === 'breakdown' && (
-          <div className={cx('grid gap-5', line && '2xl:grid-cols-[minmax(0,1fr)_28rem]')}>
-            <BreakdownTable productionId={pid} sections={s.sections} mass={mass.data} onSelectLine={setLine} selectedLineId={line?.id ?? null} />
+          <div className={cx('grid gap-5', (line || assembly) && '2xl:grid-cols-[minmax(0,1fr)_28rem]')}>
+            <BreakdownTable
+              productionId={pid}
+              sections={s.sections}
+              mass={mass.data}
+              onSelectLine={(l) => (setAssembly(null), setLine(l))}
+              onSelectAssembly={(a) => (setLine(null), setAssembly(a))}
+              selectedLineId={line?.id ?? assembly?.id ?? null}
+            />
             {line && <LinePanel key={line.id} productionId={pid} line={line} materials={s.materials} mayEdit={mayEdit} onClose={() => setLine(null)} />}
+            {assembly && <AssemblyPanel key={assembly.id} productionId={pid} assembly={assembly} sections={s.sections} mass={mass.data?.assemblies[assembly.id]} mayEdit={mayEdit} onClose={() => setAssembly(null)} />}
           </div>
         )}
         {tab === 'import' && <ImportExportView productionId={pid} mayEdit={mayEdit} />}
