@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { accessMatrix, type AccessOptions, type AccessVenue, type MatrixCrate, type MatrixVenue } from '../../../src/domain/access/index.ts';
-import type { AccessMatrixView, MatrixColumnView, MatrixRowView, TourCrateView, VenueAccessData } from '../../../src/domain/contracts/tour.ts';
+import type { AccessMatrixView, LegView, MatrixColumnView, MatrixRowView, TourCrateView, VenueAccessData } from '../../../src/domain/contracts/tour.ts';
 import { machineMass } from '../machine/mass.service.ts';
 import { engagementsQuery, loadCrates, loadLegs, loadVehicles, toEngagementView, type VehicleRow, type VenueRow } from './tour.repository.ts';
 
@@ -99,15 +99,19 @@ export interface MatrixInputs {
  * Rows (crates, then sections) and columns (engagements in tour order, each with its venue's access and the
  * first vehicle of the leg that delivers there).
  */
-export async function matrixInputs(db: Knex, productionId: string, opts: { sections?: boolean; engagementIds?: string[] } = {}): Promise<MatrixInputs> {
+export async function matrixInputs(
+  db: Knex,
+  productionId: string,
+  opts: { sections?: boolean; engagementIds?: string[]; /** Already read by the caller: not read again. */ crates?: TourCrateView[]; legs?: LegView[] } = {},
+): Promise<MatrixInputs> {
   const [engagementRows, crates, legs, vehicles, sections] = await Promise.all([
     engagementsQuery(db, productionId),
-    loadCrates(db, productionId),
-    loadLegs(db, productionId),
+    opts.crates ?? loadCrates(db, productionId),
+    opts.legs ?? loadLegs(db, productionId),
     loadVehicles(db, productionId),
     opts.sections === false ? Promise.resolve([]) : sectionRows(db, productionId),
   ]);
-  const venueIds = [...new Set(engagementRows.map((e) => e.venue_id))];
+  const venueIds = [...new Set(engagementRows.filter((e) => !opts.engagementIds || opts.engagementIds.includes(e.id)).map((e) => e.venue_id))];
   const venues = (await db<VenueRow>('venues').whereIn('id', venueIds.length ? venueIds : ['00000000-0000-0000-0000-000000000000'])) as VenueRow[];
   const columns = engagementRows
     .filter((e) => !opts.engagementIds || opts.engagementIds.includes(e.id))

@@ -31,7 +31,7 @@ export function manifestRoutes(deps: AppDeps): RouteDef[] {
       access: can('engagement.read'),
       async handler(req) {
         const { productionId, engagement } = await engagementInScope(req, 'engagement.read');
-        return { manifest: await buildManifest(db, productionId, engagement.id) };
+        return { manifest: await buildManifest(db, productionId, engagement.id, engagement) };
       },
     }),
     route({
@@ -40,7 +40,7 @@ export function manifestRoutes(deps: AppDeps): RouteDef[] {
       access: can('engagement.read'),
       async handler(req, res) {
         const { productionId, engagement } = await engagementInScope(req, 'engagement.read');
-        const manifest = await buildManifest(db, productionId, engagement.id);
+        const manifest = await buildManifest(db, productionId, engagement.id, engagement);
         const name = `manifest-${manifest.venue.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${manifest.engagement.loadInOn}.csv`;
         res.setHeader('Content-Type', 'text/csv; charset=utf-8');
         res.setHeader('Content-Disposition', `attachment; filename="${name}"`);

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import Papa from 'papaparse';
 import type { AccessFindingView, EngagementView, HangingPointView, VenueContact } from '../../../src/domain/contracts/tour.ts';
 import { matrixInputs, runMatrix } from './access.service.ts';
-import { findEngagement, loadCrates, loadLegs, toEngagementView, type VenueRow } from './tour.repository.ts';
+import { findEngagement, loadCrates, loadLegs, toEngagementView, type EngagementRow, type VenueRow } from './tour.repository.ts';
 
 /**
  * A venue manifest as data: everything a PDF renderer, the CSV export, the e-mail and the manifest screen
@@ -52,17 +52,21 @@ export interface ManifestData {
   notes: string[];
 }
 
-export async function buildManifest(db: Knex, productionId: string, engagementId: string): Promise<ManifestData> {
-  const engagementRow = await findEngagement(db, productionId, engagementId);
+/**
+ * `found`: the engagement's row when the caller has already read it (the route checks its venue scope first).
+ * The legs and crates read here are handed to the access check rather than read a second time.
+ */
+export async function buildManifest(db: Knex, productionId: string, engagementId: string, found?: EngagementRow): Promise<ManifestData> {
+  const engagementRow = found && found.id === engagementId ? found : await findEngagement(db, productionId, engagementId);
   const engagement = toEngagementView(engagementRow);
-  const [production, venue, legs, crates, inputs, hangingRows] = await Promise.all([
+  const [production, venue, legs, crates, hangingRows] = await Promise.all([
     db('productions').where({ id: productionId }).first(),
     db<VenueRow>('venues').where({ id: engagement.venueId }).first() as Promise<VenueRow>,
     loadLegs(db, productionId),
     loadCrates(db, productionId),
-    matrixInputs(db, productionId, { sections: false, engagementIds: [engagementId] }),
     db('hanging_points').where({ venue_id: engagement.venueId }).orderBy('label'),
   ]);
+  const inputs = await matrixInputs(db, productionId, { sections: false, engagementIds: [engagementId], crates, legs });
   const leg = legs.find((l) => l.toEngagementId === engagementId) ?? null;
   const notes: string[] = [];
   if (!leg) notes.push('No leg delivers to this engagement yet: no crates are listed.');
