@@ -88,6 +88,25 @@ describe('breakdown order cache', () => {
   });
 });
 
+describe('breakdown page lines', () => {
+  it('carry their placed instances in order, and the machine\'s assemblies come with the page', async () => {
+    const l = lines[5];
+    const instances = [
+      { positionMm: [10, 20, 30], eulerZyxDeg: [90, 0, 0] },
+      { positionMm: [-10.5, 0, 0.25], eulerZyxDeg: [0, 0, 180] },
+    ];
+    const saved = await onB.patch(`${base}/lines/${l.id}`).set('x-csrf-token', onB.csrf).send({ version: l.version, instances }).expect(200);
+    l.version = saved.body.line.version;
+    await onA.post(`${base}/assemblies`).set('x-csrf-token', onA.csrf).send({ number: 'ASM-1' }).expect(201);
+    const body = (await onA.get(`${base}/breakdown?sectionId=${sectionId}&sort=partNumber&limit=10`).expect(200)).body;
+    const line = body.lines.find((x: { id: string }) => x.id === l.id);
+    expect(line.instances).toEqual(instances);
+    expect(line.quantity).toBe(2);
+    expect(body.lines.find((x: { id: string }) => x.id !== l.id).instances).toEqual([]);
+    expect(body.assemblies.map((a: { number: string }) => a.number)).toEqual(['ASM-1']);
+  });
+});
+
 describe('fingerprint and cache', () => {
   it('changes with any write to the production and not with another production', async () => {
     const other = await machineTestProduction(a.db, 'Machine cache, other');

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { BreakdownQuery } from '../../../src/domain/contracts/machine.ts';
-import type { PartLineRow } from './machine.repository.ts';
+import type { AssemblyRow, PartLineRow } from './machine.repository.ts';
+import type { PartInstance } from '../../../src/domain/contracts/mass.ts';
 import { cacheFor, machineFingerprint, type FingerprintCache } from './machine-cache.ts';
 
 /**
@@ -13,6 +14,8 @@ export interface BreakdownPageRow extends PartLineRow {
   effective_section_id: string | null;
   assembly_path: string[] | null;
   has_mesh: boolean;
+  /** Its placed instances, in order. */
+  instances: PartInstance[];
 }
 
 const SORT_SQL: Record<BreakdownQuery['sort'], string> = {
@@ -34,6 +37,7 @@ interface OrderedLine {
 }
 
 const orderCaches = new WeakMap<Knex, FingerprintCache<OrderedLine[]>>();
+const assemblyCaches = new WeakMap<Knex, FingerprintCache<AssemblyRow[]>>();
 
 /**
  * The order of every line that passes the filters, computed in PostgreSQL and kept per filter and sort while
@@ -42,8 +46,7 @@ const orderCaches = new WeakMap<Knex, FingerprintCache<OrderedLine[]>>();
  * milliseconds of database time for 5,000 lines (the load benchmark); checking it is still valid costs one
  * short query.
  */
-async function orderedLines(db: Knex, productionId: string, q: BreakdownQuery): Promise<OrderedLine[]> {
-  const fingerprint = await machineFingerprint(db, productionId, ['machine_assemblies', 'machine_part_lines']);
+async function orderedLines(db: Knex, productionId: string, q: BreakdownQuery, fingerprint: string): Promise<OrderedLine[]> {
   const { offset: _o, limit: _l, ...shape } = q;
   const key = `${productionId} ${JSON.stringify(shape)}`;
   return cacheFor(orderCaches, db, 32).get(key, fingerprint, async () => {
@@ -92,15 +95,25 @@ async function orderedLines(db: Knex, productionId: string, q: BreakdownQuery): 
   });
 }
 
-export async function breakdownPage(db: Knex, productionId: string, q: BreakdownQuery): Promise<{ rows: BreakdownPageRow[]; total: number }> {
-  const ordered = await orderedLines(db, productionId, q);
+/**
+ * One page: the lines of the cached order's slice, read by id with their instances and whether they have a
+ * mesh, and every assembly of the machine (cached under the same fingerprint: the client draws the tree).
+ */
+export async function breakdownPage(db: Knex, productionId: string, q: BreakdownQuery): Promise<{ rows: BreakdownPageRow[]; total: number; assemblies: AssemblyRow[] }> {
+  const fingerprint = await machineFingerprint(db, productionId, ['machine_assemblies', 'machine_part_lines']);
+  const [ordered, assemblies] = await Promise.all([
+    orderedLines(db, productionId, q, fingerprint),
+    cacheFor(assemblyCaches, db, 32).get(productionId, fingerprint, () => db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number'])),
+  ]);
   const slice = ordered.slice(q.offset, q.offset + q.limit);
-  if (slice.length === 0) return { rows: [], total: ordered.length };
+  if (slice.length === 0) return { rows: [], total: ordered.length, assemblies };
   const { rows } = (await db.raw(
-    `select l.*, exists (select 1 from machine_meshes m where m.part_line_id = l.id) as has_mesh
+    `select l.*, exists (select 1 from machine_meshes m where m.part_line_id = l.id) as has_mesh,
+            coalesce((select json_agg(json_build_object('positionMm', json_build_array(i.x_mm, i.y_mm, i.z_mm), 'eulerZyxDeg', json_build_array(i.rz_deg, i.ry_deg, i.rx_deg)) order by i.seq)
+                        from machine_part_instances i where i.part_line_id = l.id), '[]'::json) as instances
        from machine_part_lines l where l.production_id = ? and l.id = any(?::uuid[])`,
     [productionId, slice.map((o) => o.id)],
-  )) as { rows: (PartLineRow & { has_mesh: boolean })[] };
+  )) as { rows: (PartLineRow & { has_mesh: boolean; instances: PartInstance[] })[] };
   const byId = new Map(rows.map((r) => [r.id, r]));
   const page: BreakdownPageRow[] = [];
   for (const o of slice) {
@@ -108,5 +121,5 @@ export async function breakdownPage(db: Knex, productionId: string, q: Breakdown
     // A line deleted since the order was read is left out.
     if (r) page.push({ ...r, effective_section_id: o.effective_section_id, assembly_path: o.assembly_path ? [...o.assembly_path] : null });
   }
-  return { rows: page, total: ordered.length };
+  return { rows: page, total: ordered.length, assemblies };
 }

@@ -139,17 +139,12 @@ export function machineRoutes(deps: AppDeps): RouteDef[] {
       query: breakdownQuery,
       async handler(req) {
         const productionId = pid(req);
-        await ensureMachine(db, productionId);
         const q = req.query as unknown as BreakdownQuery;
-        const [{ rows, total }, assemblies] = await Promise.all([
-          breakdownPage(db, productionId, q),
-          db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number']),
-        ]);
-        const instances = await instancesByLine(db, productionId, rows.map((r) => r.id));
+        const [, { rows, total, assemblies }] = await Promise.all([ensureMachine(db, productionId), breakdownPage(db, productionId, q)]);
         return {
           assemblies: assemblies.map(toAssemblyView),
           lines: rows.map((r) => ({
-            ...toPartLineView(r, instances.get(r.id) ?? [], r.has_mesh),
+            ...toPartLineView(r, r.instances, r.has_mesh),
             effectiveSectionId: r.effective_section_id,
             assemblyPath: r.assembly_path ?? [],
           })),
