@@ -12,7 +12,7 @@ const base = `/api/productions/${ORRERY}/machine/assemblies/${A}`;
 const assembly = { id: A, number: 'AC', name: 'Arm carousel', parentId: null, sectionId: null, keepTogether: true, notes: '', version: 2 };
 const sections = [{ id: S1, code: 'S1', name: 'Drive core', marginPercent: null, cogUncertaintyMm: null, sortOrder: 0, version: 1 }];
 
-function show(onClose = () => undefined) {
+function show(onClose: () => void = () => undefined) {
   render(
     <AppProviders queryClient={createQueryClient({ retry: false })}>
       <AssemblyPanel productionId={ORRERY} assembly={assembly} sections={sections} mass={undefined} mayEdit onClose={onClose} />
@@ -39,7 +39,9 @@ describe('assembly panel', () => {
       [`DELETE ${base}`]: (call) =>
         call.path.includes('withContents=true') ? { status: 204 } : { status: 409, body: { error: { code: 'conflict', message: 'Assembly AC holds 2 sub-assemblies and 40 part lines: delete them with it, or move them first.' } } },
     });
-    const form = show(() => (closed = true));
+    const form = show(() => {
+      closed = true;
+    });
     fireEvent.click(within(form).getByRole('button', { name: 'Delete assembly' }));
     fireEvent.click(within(form).getByRole('button', { name: 'Delete AC' }));
     expect(await within(form).findByText(/holds 2 sub-assemblies and 40 part lines/)).toBeTruthy();
