@@ -328,8 +328,16 @@ function setWorldBox(box: Box3, dx: number, dy: number, dz: number): void {
   worldBox[5] = box.maxMm[2] + dz;
 }
 
+/**
+ * The accumulators, kept between calls and grown when a bigger tree comes: allocating ~1 MB per call for a
+ * 2,000-assembly tree cost more in garbage collection than filling it. Safe because the core is synchronous.
+ */
+let accBuffer = new Float64Array(0);
+
 function emptyAcc(n: number): Float64Array {
-  const acc = new Float64Array(n * F);
+  if (accBuffer.length < n * F) accBuffer = new Float64Array(n * F);
+  const acc = accBuffer.length === n * F ? accBuffer : accBuffer.subarray(0, n * F);
+  acc.fill(0);
   for (let i = 0; i < n; i++) {
     const o = i * F;
     acc[o + BMINX] = acc[o + BMINY] = acc[o + BMINZ] = Infinity;
