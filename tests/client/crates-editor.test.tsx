@@ -104,3 +104,26 @@ describe('crate editor', () => {
     expect((screen.getByLabelText('Name') as HTMLInputElement).disabled).toBe(true);
   });
 });
+
+describe('crate editor: a newer crate arrives from the server (a refetch)', () => {
+  it('keeps unsaved edits, and takes the newer crate when nothing is edited', async () => {
+    let current = crate();
+    fakeApi({ ...sessionRoutes(planner), [`GET /api/productions/${ORRERY}`]: { body: { production: production() } }, [`GET ${crateKey}`]: () => ({ body: { crate: current } }) });
+    const { queryClient } = renderApp(`/p/${ORRERY}/crates/${CRATE}`);
+    const form = await screen.findByRole('form', { name: 'Crate details' });
+    fireEvent.change(within(form).getByLabelText('Notes'), { target: { value: 'Gears wrapped in foam' } });
+
+    current = crate({ name: 'Planet 2 parts (renamed by someone)', version: 4 });
+    await queryClient.invalidateQueries();
+    await waitFor(() => expect((queryClient.getQueryData(['crates', ORRERY, 'one', CRATE]) as CrateView | undefined)?.version).toBe(4));
+    // The edit in progress stays; the name is still the one this person started from.
+    expect((within(form).getByLabelText('Notes') as HTMLInputElement).value).toBe('Gears wrapped in foam');
+    expect((within(form).getByLabelText('Name') as HTMLInputElement).value).toBe('Planet 2 parts A');
+
+    // With the edit undone, the next newer crate is taken into the form.
+    fireEvent.change(within(form).getByLabelText('Notes'), { target: { value: '' } });
+    current = crate({ name: 'Planet 2 parts B', version: 5 });
+    await queryClient.invalidateQueries();
+    await waitFor(() => expect((within(form).getByLabelText('Name') as HTMLInputElement).value).toBe('Planet 2 parts B'));
+  });
+});

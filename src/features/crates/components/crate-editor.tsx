@@ -16,8 +16,9 @@ export function CrateEditorPage({ crateId }: { crateId: string }) {
   const crate = useCrate(productionId ?? '', crateId);
   if (crate.isPending) return <PageLoading label="Loading the crate…" />;
   if (crate.isError) return <ErrorState title="The crate could not be loaded" error={crate.error} onRetry={() => crate.refetch()} retrying={crate.isFetching} />;
-  // Keyed by id and version: a save or a reload starts the form from the server's record.
-  return <CrateEditor key={`${crate.data.id}:${crate.data.version}`} productionId={productionId!} crate={crate.data} />;
+  // Keyed by id only: a newer record from the server (a refetch when the window regains focus) must not throw
+  // away unsaved edits; the editor adopts it only while nothing is edited.
+  return <CrateEditor key={crate.data.id} productionId={productionId!} crate={crate.data} />;
 }
 
 type Values = Pick<CrateView, 'code' | 'name' | 'notes' | 'stackable' | 'thisWayUp' | 'fragile' | 'mayTilt' | 'ispm15Required' | 'maxLoadOnTopKg' | 'maxGrossKg' | 'outerMm' | 'tareKg'> & { clearanceMm: number | null };
@@ -87,9 +88,29 @@ function CrateEditor({ productionId, crate }: { productionId: string; crate: Cra
   const diff = changes(base, values);
   const dirty = Object.keys(diff).length > 0;
   const edit = <K extends keyof Values>(k: K, v: Values[K]) => setValues((s) => ({ ...s, [k]: v }));
+  // A newer record arrived (someone saved, then a refetch): take it while nothing is edited; with edits in the
+  // form keep them, and the save shows their version beside mine.
+  const [seenVersion, setSeenVersion] = useState(crate.version);
+  if (crate.version !== seenVersion) {
+    setSeenVersion(crate.version);
+    if (!dirty && !theirs && crate.version > base.version) {
+      setBase(crate);
+      setValues(valuesOf(crate));
+    }
+  }
 
   function save(from: CrateView) {
-    update.mutate({ version: from.version, ...diff }, { onError: (e) => setErrors(apiFieldErrors(e)) });
+    update.mutate(
+      { version: from.version, ...diff },
+      {
+        onSuccess: (savedCrate) => {
+          setBase(savedCrate);
+          setValues(valuesOf(savedCrate));
+          setErrors({});
+        },
+        onError: (e) => setErrors(apiFieldErrors(e)),
+      },
+    );
   }
   function submit(e: FormEvent) {
     e.preventDefault();
