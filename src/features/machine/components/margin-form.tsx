@@ -7,6 +7,12 @@ import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
 /** The machine's contingency margin (%), which lifting and packing use for every section without its own. */
 export function MarginForm({ productionId, machine }: { productionId: string; machine: MachineView }) {
   const [value, setValue] = useState(String(machine.marginPercent));
+  // A newer machine from the server replaces the figure only while nobody is typing a different one.
+  const [shown, setShown] = useState(machine.marginPercent);
+  if (machine.marginPercent !== shown) {
+    setShown(machine.marginPercent);
+    if (value === String(shown)) setValue(String(machine.marginPercent));
+  }
   const change = useMachineChange(productionId);
   const stale = staleCurrent<MachineView>(change.error);
   function submit(e: FormEvent) {

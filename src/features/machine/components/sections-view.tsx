@@ -41,7 +41,7 @@ export function SectionsView({ productionId, summary, mass, mayEdit }: SectionsV
         </p>
         {mayEdit && (
           <div className="flex flex-wrap items-end gap-2">
-            <MarginForm key={summary.machine.version} productionId={productionId} machine={summary.machine} />
+            <MarginForm productionId={productionId} machine={summary.machine} />
             <Button variant="secondary" onClick={() => setAdding((v) => !v)}>
               New section
             </Button>
