@@ -3,11 +3,12 @@ import { Link } from 'react-router-dom';
 import type { PackingRunView, PlacementView, RunItemView, VehicleFiguresView } from '@domain/contracts/crate-loads.ts';
 import { combineMasses } from '@domain/mass/index.ts';
 import { validatePacking } from '@domain/packing/index.ts';
-import { Alert, Badge, Button, Card, EmptyState, ErrorState, PageHeader, PageLoading, SelectField, Spinner } from '../../../components/ui/index.ts';
-import { errorMessage } from '../../../lib/api.ts';
+import { Alert, Badge, Button, Card, EmptyState, ErrorState, PageHeader, PageLoading, SelectField, Spinner, StaleSaveAlert } from '../../../components/ui/index.ts';
+import { ApiError, errorMessage } from '../../../lib/api.ts';
+import { useQueryClient } from '@tanstack/react-query';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
 import { useUnits, type Units } from '../../../lib/use-units.ts';
-import { useRun, useSavePlacements } from '../api/loads-api.ts';
+import { loadKeys, useRun, useSavePlacements } from '../api/loads-api.ts';
 import type { SceneCrate } from './load-view-3d.tsx';
 
 const LoadView3d = lazy(() => import('./load-view-3d.tsx'));
@@ -40,7 +41,7 @@ export function RunPage({ runId }: { runId: string }) {
         </Card>
       )}
       {r.status === 'failed' && <Alert tone="danger" title="The run failed">{r.error}</Alert>}
-      {r.status === 'done' && r.result && r.figures && r.input && <RunResult key={r.version} productionId={productionId!} run={r as Required<PackingRunView>} />}
+      {r.status === 'done' && r.result && r.figures && r.input && <RunResult key={r.id} productionId={productionId!} run={r as Required<PackingRunView>} />}
     </div>
   );
 }
@@ -161,9 +162,18 @@ function RunResult({ productionId, run }: { productionId: string; run: Required<
   const usedVehicles = input.vehicles.filter((v) => result.placements.some((p) => p.vehicleId === v.id));
   const [vehicleId, setVehicleId] = useState(usedVehicles[0]?.id ?? input.vehicles[0]?.id ?? '');
   const [colourBy, setColourBy] = useState<ColourBy>('crate');
-  const [draft, setDraft] = useState<PlacementView[] | null>(null);
+  const [draft, setDraftState] = useState<PlacementView[] | null>(null);
+  // The run's version when the hand edits began: the save carries it, so someone else's edit in between is not
+  // overwritten silently (a refetch may bring a newer run while the edits are still on screen).
+  const [draftVersion, setDraftVersion] = useState<number | null>(null);
+  const setDraft = (d: PlacementView[] | null) => {
+    setDraftState(d);
+    setDraftVersion(d === null ? null : (v) => v ?? run.version);
+  };
   const [selected, setSelected] = useState<string | null>(null);
   const save = useSavePlacements(productionId, run.id);
+  const qc = useQueryClient();
+  const theirs = save.error instanceof ApiError && save.error.status === 409 && save.error.current && typeof save.error.current === 'object' ? (save.error.current as PackingRunView) : null;
   const vehicle = input.vehicles.find((v) => v.id === vehicleId);
   const original = result.placements.filter((p) => p.vehicleId === vehicleId);
   const mine = draft ?? original;
@@ -315,7 +325,7 @@ function RunResult({ productionId, run }: { productionId: string; run: Required<
             <Button
               loading={save.isPending}
               disabled={!check?.ok}
-              onClick={() => save.mutate({ version: run.version, vehicleId, placements: draft.map(({ vehicleId: _v, ...p }) => p) }, { onSuccess: () => setDraft(null) })}
+              onClick={() => save.mutate({ version: draftVersion ?? run.version, vehicleId, placements: draft.map(({ vehicleId: _v, ...p }) => p) }, { onSuccess: () => setDraft(null) })}
             >
               Save the edited load
             </Button>
@@ -324,7 +334,30 @@ function RunResult({ productionId, run }: { productionId: string; run: Required<
             </Button>
           </div>
         )}
-        {save.isError && <Alert tone="danger" className="mt-3">{errorMessage(save.error)}</Alert>}
+        {theirs && draft && (
+          <div className="mt-3">
+            <StaleSaveAlert
+              title="Someone else changed this load while you were moving crates"
+              busy={save.isPending}
+              fields={[
+                { label: 'Crates in this vehicle', theirs: (theirs.result?.placements ?? []).filter((p) => p.vehicleId === vehicleId).length, mine: draft.length },
+                {
+                  label: 'Crates placed elsewhere than in your edit',
+                  theirs: draft.filter((d) => !(theirs.result?.placements ?? []).some((p) => p.id === d.id && p.vehicleId === vehicleId && p.xMm === d.xMm && p.yMm === d.yMm && p.zMm === d.zMm)).length,
+                  mine: 0,
+                },
+              ]}
+              note="Keep mine replaces this vehicle's load with yours, re-checked by the rules."
+              onReload={() => {
+                qc.setQueryData(loadKeys.run(productionId, run.id), theirs);
+                setDraft(null);
+                save.reset();
+              }}
+              onKeepMine={() => save.mutate({ version: theirs.version, vehicleId, placements: draft.map(({ vehicleId: _v, ...p }) => p) }, { onSuccess: () => setDraft(null) })}
+            />
+          </div>
+        )}
+        {save.isError && !theirs && <Alert tone="danger" className="mt-3">{errorMessage(save.error)}</Alert>}
       </Card>
     </>
   );
