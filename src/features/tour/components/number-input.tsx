@@ -1,15 +1,19 @@
 import { useState } from 'react';
+import { fromKg, fromMm, toKg, toMm } from '@domain/units.ts';
 import { controlClasses, Field } from '../../../components/ui/index.ts';
+import { useUnits } from '../../../lib/use-units.ts';
 
 /**
  * A measure that may not be known: an empty box is null ("unknown", and the check says so), never 0.
- * Holds its own text while typing so "1." or "" do not jump.
+ * Holds its own text while typing so "1." or "" do not jump. With `measure`, the person types in their own units
+ * (mm or in, kg or lb) and the value stays in mm or kg; otherwise `unit` names the one unit it takes.
  */
 export function NumberInput({
   label,
   value,
   onChange,
   unit,
+  measure,
   error,
   hint,
   className,
@@ -17,21 +21,29 @@ export function NumberInput({
   label: string;
   value: number | null | undefined;
   onChange: (v: number | null) => void;
-  unit: string;
+  unit?: string;
+  measure?: 'length' | 'mass';
   error?: string;
   hint?: string;
   className?: string;
 }) {
-  const [text, setText] = useState(value === null || value === undefined ? '' : String(value));
+  const u = useUnits();
+  const shownUnit = measure === 'length' ? u.lengthUnit : measure === 'mass' ? u.massUnit : (unit ?? '');
+  const toShown = (si: number) => (measure === 'length' ? fromMm(si, u.lengthUnit) : measure === 'mass' ? fromKg(si, u.massUnit) : si);
+  const fromShown = (n: number) => (measure === 'length' ? toMm(n, u.lengthUnit) : measure === 'mass' ? toKg(n, u.massUnit) : n);
+  // Metric figures as typed; converted ones to 2 decimals (0.01 in = 0.25 mm, 0.01 lb = 4.5 g).
+  const format = (si: number | null | undefined) => (si === null || si === undefined ? '' : shownUnit === 'in' || shownUnit === 'lb' ? String(Number(toShown(si).toFixed(2))) : String(toShown(si)));
+  const [text, setText] = useState(() => format(value));
   const [lastValue, setLastValue] = useState(value);
   if (value !== lastValue) {
     // The value changed from outside (reload after a conflict): show it.
     setLastValue(value);
-    const parsed = text.trim() === '' ? null : Number(text);
-    if (parsed !== value) setText(value === null || value === undefined ? '' : String(value));
+    const typed = text.trim() === '' ? null : fromShown(Number(text.replace(',', '.')));
+    const same = typed === value || (typed !== null && value != null && Math.abs(typed - value) < 1e-6 * Math.max(1, Math.abs(value)));
+    if (!same) setText(format(value));
   }
   return (
-    <Field label={`${label} (${unit})`} error={error} hint={hint} className={className}>
+    <Field label={`${label} (${shownUnit})`} error={error} hint={hint} className={className}>
       {(control) => (
         <input
           {...control}
@@ -43,7 +55,7 @@ export function NumberInput({
             setText(e.target.value);
             const t = e.target.value.trim().replace(',', '.');
             const n = t === '' ? null : Number(t);
-            const next = n === null || Number.isFinite(n) ? n : NaN;
+            const next = n === null ? null : Number.isFinite(n) ? fromShown(n) : NaN;
             setLastValue(next);
             onChange(next);
           }}

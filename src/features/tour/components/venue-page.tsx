@@ -130,8 +130,8 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
           {doors.map((d, i) => (
             <div key={i} className="grid items-end gap-2 sm:grid-cols-[2fr_1fr_1fr_auto]">
               <TextField label={`Point ${i + 1} name`} value={d.name ?? ''} onChange={(e) => setDoor(i, { name: e.target.value })} disabled={!may} />
-              <NumberInput label="Clear width" unit="mm" value={d.widthMm} onChange={(v) => setDoor(i, { widthMm: v })} error={errors[`access.doors.${i}.widthMm`]} />
-              <NumberInput label="Clear height" unit="mm" value={d.heightMm} onChange={(v) => setDoor(i, { heightMm: v })} error={errors[`access.doors.${i}.heightMm`]} />
+              <NumberInput label="Clear width" measure="length" value={d.widthMm} onChange={(v) => setDoor(i, { widthMm: v })} error={errors[`access.doors.${i}.widthMm`]} />
+              <NumberInput label="Clear height" measure="length" value={d.heightMm} onChange={(v) => setDoor(i, { heightMm: v })} error={errors[`access.doors.${i}.heightMm`]} />
               {may && (
                 <Button variant="ghost" onClick={() => setAccess({ doors: doors.filter((_, j) => j !== i) })}>
                   Remove
@@ -160,8 +160,8 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
             </SelectField>
             {dock?.kind === 'dock' && (
               <>
-                <NumberInput label="Dock height" unit="mm" value={dock.heightMm} onChange={(v) => setAccess({ dock: { ...dock, heightMm: v } })} />
-                <NumberInput label="Leveller reach ±" unit="mm" value={dock.levellerRangeMm} onChange={(v) => setAccess({ dock: { ...dock, levellerRangeMm: v } })} />
+                <NumberInput label="Dock height" measure="length" value={dock.heightMm} onChange={(v) => setAccess({ dock: { ...dock, heightMm: v } })} />
+                <NumberInput label="Leveller reach ±" measure="length" value={dock.levellerRangeMm} onChange={(v) => setAccess({ dock: { ...dock, levellerRangeMm: v } })} />
               </>
             )}
           </div>
@@ -175,7 +175,7 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
                   </option>
                 ))}
               </SelectField>
-              <NumberInput label="Capacity" unit="kg" value={e.capacityKg} onChange={(v) => setAccess({ equipment: equipment.map((x, j) => (j === i ? { ...x, capacityKg: v } : x)) })} />
+              <NumberInput label="Capacity" measure="mass" value={e.capacityKg} onChange={(v) => setAccess({ equipment: equipment.map((x, j) => (j === i ? { ...x, capacityKg: v } : x)) })} />
               {may && (
                 <Button variant="ghost" onClick={() => setAccess({ equipment: equipment.filter((_, j) => j !== i) })}>
                   Remove
@@ -188,7 +188,7 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
               Add equipment
             </Button>
           )}
-          <NumberInput className="max-w-xs" label="Pallet truck riding into the lift" unit="kg" value={a.handlingEquipmentKg} onChange={(v) => setAccess({ handlingEquipmentKg: v })} />
+          <NumberInput className="max-w-xs" label="Pallet truck riding into the lift" measure="mass" value={a.handlingEquipmentKg} onChange={(v) => setAccess({ handlingEquipmentKg: v })} />
           <p className="text-sm font-semibold text-ink-800">Ramps</p>
           {ramps.map((r: Ramp, i) => (
             <div key={i} className="grid items-end gap-2 sm:grid-cols-[2fr_1fr_auto]">
@@ -217,12 +217,12 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
           />
           {lift && (
             <div className="grid gap-3 sm:grid-cols-3">
-              <NumberInput label="Car length" unit="mm" value={lift.carLengthMm} onChange={(v) => setLift({ carLengthMm: v })} />
-              <NumberInput label="Car width" unit="mm" value={lift.carWidthMm} onChange={(v) => setLift({ carWidthMm: v })} />
-              <NumberInput label="Car height" unit="mm" value={lift.carHeightMm} onChange={(v) => setLift({ carHeightMm: v })} />
-              <NumberInput label="Door width" unit="mm" value={lift.doorWidthMm} onChange={(v) => setLift({ doorWidthMm: v })} />
-              <NumberInput label="Door height" unit="mm" value={lift.doorHeightMm} onChange={(v) => setLift({ doorHeightMm: v })} />
-              <NumberInput label="Rated load" unit="kg" value={lift.ratedLoadKg} onChange={(v) => setLift({ ratedLoadKg: v })} />
+              <NumberInput label="Car length" measure="length" value={lift.carLengthMm} onChange={(v) => setLift({ carLengthMm: v })} />
+              <NumberInput label="Car width" measure="length" value={lift.carWidthMm} onChange={(v) => setLift({ carWidthMm: v })} />
+              <NumberInput label="Car height" measure="length" value={lift.carHeightMm} onChange={(v) => setLift({ carHeightMm: v })} />
+              <NumberInput label="Door width" measure="length" value={lift.doorWidthMm} onChange={(v) => setLift({ doorWidthMm: v })} />
+              <NumberInput label="Door height" measure="length" value={lift.doorHeightMm} onChange={(v) => setLift({ doorHeightMm: v })} />
+              <NumberInput label="Rated load" measure="mass" value={lift.ratedLoadKg} onChange={(v) => setLift({ ratedLoadKg: v })} />
               <SelectField label="Loading class" value={lift.loadingClass ?? ''} onChange={(e) => setLift({ loadingClass: (e.target.value || null) as Lift['loadingClass'] })} hint="Unknown is treated as class A." disabled={!may}>
                 <option value="">Unknown</option>
                 {['A', 'B', 'C1', 'C2', 'C3'].map((c) => (
@@ -314,7 +314,7 @@ function HangingPoints({ productionId, venueId }: { productionId: string; venueI
           }}
         >
           <TextField label="Point name" value={name} onChange={(e) => setName(e.target.value)} />
-          <NumberInput label="Rating" unit="kg" value={wll} onChange={setWll} />
+          <NumberInput label="Rating" measure="mass" value={wll} onChange={setWll} />
           <Button type="submit" variant="secondary" loading={add.isPending}>
             Add point
           </Button>
