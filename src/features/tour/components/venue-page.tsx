@@ -8,6 +8,7 @@ import { apiFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useHangingPointMutations, useHangingPoints, useUpdateVenue, useVenue, useVenueCheck, venueConflict, type VenueView } from '../api/venues.ts';
 import { AccessMatrix } from './access-matrix.tsx';
 import { NumberInput } from './number-input.tsx';
+import { useUnits } from '../../../lib/use-units.ts';
 
 type Door = VenueAccessData['doors'][number];
 type Lift = NonNullable<VenueAccessData['lift']>;
@@ -282,6 +283,7 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
 function HangingPoints({ productionId, venueId }: { productionId: string; venueId: string }) {
   const points = useHangingPoints(productionId, venueId);
   const may = useMay('venue.edit');
+  const u = useUnits();
   const { add, remove } = useHangingPointMutations(productionId, venueId);
   const [name, setName] = useState('');
   const [wll, setWll] = useState<number | null>(null);
@@ -292,7 +294,7 @@ function HangingPoints({ productionId, venueId }: { productionId: string; venueI
           {points.data.map((p) => (
             <li key={p.id} className="flex flex-wrap items-center gap-3">
               <span className="font-semibold">{p.label}</span>
-              <span>{p.ratingKg === null ? 'rating unknown' : `rated ${p.ratingKg} kg`}</span>
+              <span>{p.ratingKg === null ? 'rating unknown' : `rated ${u.formatMass(p.ratingKg)}`}</span>
               {p.notes && <span className="text-ink-600">{p.notes}</span>}
               {may && (
                 <Button size="sm" variant="ghost" onClick={() => remove.mutate(p.id)}>
