@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import type { ImpactDraftParsed, ImpactRow, ImpactView } from '@domain/contracts/split.ts';
+import { toKg, toMm } from '@domain/units.ts';
 import { Alert, Badge, Button, Card, EmptyState, ErrorState, PageHeader, SelectField, TextField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
@@ -84,6 +85,10 @@ function DraftList({ draft, onChange }: { draft: Draft; onChange: (d: Draft) => 
 }
 
 function DraftForm({ productionId, draft, onChange }: { productionId: string; draft: Draft; onChange: (d: Draft) => void }) {
+  const u = useUnits();
+  // Typed in the person's units, held in kg and mm.
+  const kg = (t: string) => (num(t) === undefined ? undefined : toKg(num(t)!, u.massUnit));
+  const mm = (t: string) => (num(t) === undefined ? undefined : toMm(num(t)!, u.lengthUnit));
   const [search, setSearch] = useState('');
   const lines = usePartLines(productionId, search);
   const venues = useVenues(productionId);
@@ -109,16 +114,16 @@ function DraftForm({ productionId, draft, onChange }: { productionId: string; dr
             <option value="">Pick one…</option>
             {(lines.data ?? []).map((l) => (
               <option key={l.id} value={l.id}>
-                {l.partNumber} {l.name} ({l.unitMassKg ?? '—'} kg)
+                {l.partNumber} {l.name} ({l.unitMassKg === null ? '—' : u.formatMass(l.unitMassKg)})
               </option>
             ))}
           </SelectField>
-          <TextField label="New unit mass, kg" name="unitMassKg" inputMode="decimal" value={mass} onChange={(e) => setMass(e.target.value)} />
+          <TextField label={`New unit mass, ${u.massUnit}`} name="unitMassKg" inputMode="decimal" value={mass} onChange={(e) => setMass(e.target.value)} />
           <Button
             variant="secondary"
-            disabled={!line || num(mass) === undefined || num(mass)! < 0}
+            disabled={!line || kg(mass) === undefined || kg(mass)! < 0}
             onClick={() => {
-              onChange({ ...draft, partMasses: [...draft.partMasses, { lineId, unitMassKg: num(mass)!, massSource: 'weighed', version: line?.version }] });
+              onChange({ ...draft, partMasses: [...draft.partMasses, { lineId, unitMassKg: kg(mass)!, massSource: 'weighed', version: line?.version }] });
               setMass('');
             }}
           >
@@ -138,18 +143,18 @@ function DraftForm({ productionId, draft, onChange }: { productionId: string; dr
           <SelectField label="Door" name="doorIndex" value={doorIndex} onChange={(e) => setDoorIndex(e.target.value)}>
             {(venue?.access?.doors ?? []).map((d, i) => (
               <option key={i} value={i}>
-                {d.name || `door ${i + 1}`} ({d.widthMm ?? '?'} × {d.heightMm ?? '?'} mm)
+                {d.name || `door ${i + 1}`} ({d.widthMm == null ? '?' : u.formatLength(d.widthMm)} × {d.heightMm == null ? '?' : u.formatLength(d.heightMm)})
               </option>
             ))}
           </SelectField>
           <div className="grid grid-cols-2 gap-2">
-            <TextField label="Clear width, mm" name="doorWidthMm" inputMode="decimal" value={doorW} onChange={(e) => setDoorW(e.target.value)} />
-            <TextField label="Clear height, mm" name="doorHeightMm" inputMode="decimal" value={doorH} onChange={(e) => setDoorH(e.target.value)} />
+            <TextField label={`Clear width, ${u.lengthUnit}`} name="doorWidthMm" inputMode="decimal" value={doorW} onChange={(e) => setDoorW(e.target.value)} />
+            <TextField label={`Clear height, ${u.lengthUnit}`} name="doorHeightMm" inputMode="decimal" value={doorH} onChange={(e) => setDoorH(e.target.value)} />
           </div>
           <Button
             variant="secondary"
-            disabled={!venue || !(venue.access?.doors?.length) || (num(doorW) === undefined && num(doorH) === undefined)}
-            onClick={() => onChange({ ...draft, venueDoors: [...draft.venueDoors, { venueId, doorIndex: Number(doorIndex), ...(num(doorW) ? { widthMm: num(doorW) } : {}), ...(num(doorH) ? { heightMm: num(doorH) } : {}) }] })}
+            disabled={!venue || !(venue.access?.doors?.length) || (mm(doorW) === undefined && mm(doorH) === undefined)}
+            onClick={() => onChange({ ...draft, venueDoors: [...draft.venueDoors, { venueId, doorIndex: Number(doorIndex), ...(mm(doorW) ? { widthMm: mm(doorW) } : {}), ...(mm(doorH) ? { heightMm: mm(doorH) } : {}) }] })}
           >
             Add to the draft
           </Button>
@@ -180,17 +185,17 @@ function DraftForm({ productionId, draft, onChange }: { productionId: string; dr
           <legend className="font-semibold">A new assembly (one estimated part)</legend>
           <div className="grid grid-cols-2 gap-2">
             <TextField label="Number" name="asmNumber" value={asm.number} onChange={(e) => setAsm({ ...asm, number: e.target.value })} />
-            <TextField label="Mass, kg" name="asmMassKg" inputMode="decimal" value={asm.massKg} onChange={(e) => setAsm({ ...asm, massKg: e.target.value })} />
+            <TextField label={`Mass, ${u.massUnit}`} name="asmMassKg" inputMode="decimal" value={asm.massKg} onChange={(e) => setAsm({ ...asm, massKg: e.target.value })} />
           </div>
           <div className="grid grid-cols-3 gap-2">
             {(['x', 'y', 'z'] as const).map((k) => (
-              <TextField key={k} label={`CoG ${k}, mm`} name={`asmCog${k}`} inputMode="decimal" value={asm[k]} onChange={(e) => setAsm({ ...asm, [k]: e.target.value })} />
+              <TextField key={k} label={`CoG ${k}, ${u.lengthUnit}`} name={`asmCog${k}`} inputMode="decimal" value={asm[k]} onChange={(e) => setAsm({ ...asm, [k]: e.target.value })} />
             ))}
           </div>
           <Button
             variant="secondary"
-            disabled={!asm.number.trim() || num(asm.massKg) === undefined || [asm.x, asm.y, asm.z].some((v) => num(v) === undefined)}
-            onClick={() => onChange({ ...draft, newAssemblies: [...draft.newAssemblies, { number: asm.number.trim(), name: '', parentId: null, sectionId: null, massKg: num(asm.massKg)!, cogMm: [num(asm.x)!, num(asm.y)!, num(asm.z)!], bboxMm: null }] })}
+            disabled={!asm.number.trim() || kg(asm.massKg) === undefined || [asm.x, asm.y, asm.z].some((v) => mm(v) === undefined)}
+            onClick={() => onChange({ ...draft, newAssemblies: [...draft.newAssemblies, { number: asm.number.trim(), name: '', parentId: null, sectionId: null, massKg: kg(asm.massKg)!, cogMm: [mm(asm.x)!, mm(asm.y)!, mm(asm.z)!], bboxMm: null }] })}
           >
             Add to the draft
           </Button>
