@@ -3,7 +3,7 @@ import { breakdownField, importProblem, importUnits, type BreakdownImportOptions
 import { api } from '../../../lib/api.ts';
 import { parseResponse } from '../../../lib/parse.ts';
 import { machinePath } from './keys.ts';
-import { uploadFile, type UploadProgress } from './upload-file.ts';
+import { uploadFile, type UploadProgress } from '../../../lib/upload.ts';
 
 /** What the server answers to an upload: the staged file and the mapping it suggests (remembered per machine). */
 export const stagedImport = z.object({

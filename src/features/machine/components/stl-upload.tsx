@@ -6,7 +6,7 @@ import { Alert, Button, ChoiceGroup, Field, SelectField, controlClasses } from '
 import { errorMessage } from '../../../lib/api.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { machineKeys, machinePath } from '../api/keys.ts';
-import { uploadFile } from '../api/upload-file.ts';
+import { uploadFile } from '../../../lib/upload.ts';
 import type { z } from 'zod';
 
 type StlUnit = z.infer<typeof stlUnit>;

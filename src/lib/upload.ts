@@ -1,4 +1,4 @@
-import { ApiError, api } from '../../../lib/api.ts';
+import { ApiError, api } from './api.ts';
 
 export interface UploadProgress {
   loadedBytes: number;
@@ -8,13 +8,20 @@ export interface UploadProgress {
 /**
  * Sends a multipart form with one file and reports upload progress (fetch cannot report it; XMLHttpRequest
  * can). Carries the session cookie and a CSRF token like every other change; errors become ApiError with the
- * server's message (limits and types named there).
+ * server's message (limits and types named there). Used by every upload: parts lists, meshes, archives.
  */
-export async function uploadFile<T>(path: string, file: File | Blob, fileName: string, fields: Record<string, string>, onProgress?: (p: UploadProgress) => void): Promise<T> {
+export async function uploadFile<T>(
+  path: string,
+  file: File | Blob,
+  fileName: string,
+  fields: Record<string, string>,
+  onProgress?: (p: UploadProgress) => void,
+  fieldName = 'file',
+): Promise<T> {
   const { csrfToken } = await api.get<{ csrfToken: string }>('/auth/csrf');
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
-  form.append('file', file, fileName);
+  form.append(fieldName, file, fileName);
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', `/api${path}`);
