@@ -120,6 +120,17 @@ describe('machine screen: editing a section someone else saved meanwhile', { tim
   const patchKey = `PATCH /api/productions/${ORRERY}/machine/sections/${S1}`;
   const theirs = { id: S1, code: 'S1', name: 'Drive core (theirs)', marginPercent: 8, cogUncertaintyMm: null, sortOrder: 0, version: 2 };
 
+  /** Opens S1's edit form, types a new name and saves; returns the form. */
+  async function renameS1AndSave(): Promise<HTMLElement> {
+    renderApp(`/p/${ORRERY}/machine`);
+    await screen.findByRole('heading', { name: /^S1/ });
+    fireEvent.click(within(card('S1')).getByRole('button', { name: 'Edit' }));
+    const form = await screen.findByRole('form', { name: 'Edit section S1' });
+    fireEvent.change(within(form).getByLabelText('Name'), { target: { value: 'Drive core (mine)' } });
+    fireEvent.click(within(form).getByRole('button', { name: 'Save section' }));
+    return form;
+  }
+
   it('shows their version beside mine, and "Keep mine" saves only my change on top of theirs', async () => {
     const api = fakeApi({
       ...sessionRoutes(planner),
@@ -129,12 +140,7 @@ describe('machine screen: editing a section someone else saved meanwhile', { tim
           ? { status: 409, body: { error: { code: 'conflict', message: 'Someone else saved this in the meantime.', current: theirs } } }
           : { body: { section: { ...theirs, ...(call.body as object), version: 3 } } },
     });
-    renderApp(`/p/${ORRERY}/machine`);
-    await screen.findByRole('heading', { name: /^S1/ });
-    fireEvent.click(within(card('S1')).getByRole('button', { name: 'Edit' }));
-    const form = await screen.findByRole('form', { name: 'Edit section S1' });
-    fireEvent.change(within(form).getByLabelText('Name'), { target: { value: 'Drive core (mine)' } });
-    fireEvent.click(within(form).getByRole('button', { name: 'Save section' }));
+    const form = await renameS1AndSave();
 
     const notice = await within(form).findByRole('alert');
     expect(within(notice).getByText('Someone else saved this section while you were editing')).toBeTruthy();
@@ -152,12 +158,7 @@ describe('machine screen: editing a section someone else saved meanwhile', { tim
 
   it('"Reload their version" puts their values in the form and saves nothing', async () => {
     const api = fakeApi({ ...sessionRoutes(planner), ...machineRoutes(), [patchKey]: { status: 409, body: { error: { code: 'conflict', message: 'Stale.', current: theirs } } } });
-    renderApp(`/p/${ORRERY}/machine`);
-    await screen.findByRole('heading', { name: /^S1/ });
-    fireEvent.click(within(card('S1')).getByRole('button', { name: 'Edit' }));
-    const form = await screen.findByRole('form', { name: 'Edit section S1' });
-    fireEvent.change(within(form).getByLabelText('Name'), { target: { value: 'Drive core (mine)' } });
-    fireEvent.click(within(form).getByRole('button', { name: 'Save section' }));
+    const form = await renameS1AndSave();
     fireEvent.click(await within(form).findByRole('button', { name: 'Reload their version' }));
     await waitFor(() => expect((within(form).getByLabelText('Name') as HTMLInputElement).value).toBe('Drive core (theirs)'));
     expect((within(form).getByLabelText('Margin (%)') as HTMLInputElement).value).toBe('8');
