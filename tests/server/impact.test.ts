@@ -78,4 +78,23 @@ describe('impact', () => {
     // The same draft again is stale: the line's version moved on.
     await planner.post(`/api/productions/${p}/impact/apply`).set('x-csrf-token', planner.csrf).send({ draft }).expect(409);
   });
+
+  it("writes the rows' masses and CoG in the person's units", async () => {
+    const bq1 = await t.db('machine_sections').where({ production_id: p, code: 'BQ1' }).first('id');
+    const draft = { newAssemblies: [{ number: `UNITS-${Date.now()}`, name: '', parentId: null, sectionId: bq1.id, massKg: 25, cogMm: [0, 0, 500], bboxMm: null }] };
+    const metric = (await evaluate(draft)).rows.find((r) => r.kind === 'section' && r.id === bq1.id)!;
+    const user = await t.db('users').where({ email: 'planner@ballast.example' }).first('id', 'units');
+    await t.db('users').where({ id: user.id }).update({ units: 'imperial' });
+    try {
+      const imperial = (await evaluate(draft)).rows.find((r) => r.kind === 'section' && r.id === bq1.id)!;
+      expect(metric.after.figure).toMatch(/kg.*CoG .* mm/);
+      expect(imperial.after.figure).toMatch(/lb .*CoG .* in/);
+      expect(imperial.after.figure).not.toMatch(/kg|mm/);
+      // The same mass: 1 lb = 0.453 592 37 kg exactly (NIST SP 811, 2008, B.8); both figures rounded to 0.1.
+      const first = (text: string) => Number(/([\d,]+\.\d)/.exec(text)![1].replace(/,/g, ''));
+      expect(Math.abs(first(imperial.after.figure) * 0.45359237 - first(metric.after.figure))).toBeLessThan(0.1);
+    } finally {
+      await t.db('users').where({ id: user.id }).update({ units: user.units });
+    }
+  });
 });

@@ -3,6 +3,7 @@ import { impactApplyBody, impactEvaluateBody, type ImpactDraftParsed } from '../
 import type { AppDeps } from '../../app.ts';
 import { can, route, uuidParam, type RouteDef } from '../../http/routes.ts';
 import { applyDraft, evaluateDraft } from './impact.service.ts';
+import type { UnitSystem } from '../../../src/domain/units.ts';
 
 /**
  * The impact view under `/api/productions/:productionId/impact`: evaluate a draft without saving it, or
@@ -11,6 +12,8 @@ import { applyDraft, evaluateDraft } from './impact.service.ts';
 export function impactRoutes(deps: AppDeps): RouteDef[] {
   const { db } = deps;
   const pid = (req: Request) => uuidParam(req, 'productionId');
+  // The rows' figures are written in the person's units.
+  const unitsOf = async (req: Request): Promise<UnitSystem> => ((await db('users').where({ id: req.actor!.userId }).first('units'))?.units as UnitSystem | undefined) ?? 'metric';
   return [
     route({
       method: 'post',
@@ -18,7 +21,7 @@ export function impactRoutes(deps: AppDeps): RouteDef[] {
       access: can('machine.read'),
       body: impactEvaluateBody,
       async handler(req) {
-        const { loaded: _l, ...impact } = await evaluateDraft(db, pid(req), (req.body as { draft: ImpactDraftParsed }).draft);
+        const { loaded: _l, ...impact } = await evaluateDraft(db, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, await unitsOf(req));
         return { impact };
       },
     }),
@@ -27,7 +30,7 @@ export function impactRoutes(deps: AppDeps): RouteDef[] {
       path: '/apply',
       access: can('machine.edit'),
       body: impactApplyBody,
-      handler: async (req) => ({ impact: await applyDraft(db, req.actor!, pid(req), (req.body as { draft: ImpactDraftParsed }).draft), applied: true }),
+      handler: async (req) => ({ impact: await applyDraft(db, req.actor!, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, await unitsOf(req)), applied: true }),
     }),
   ];
 }

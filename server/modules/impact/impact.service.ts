@@ -13,6 +13,7 @@ import { computeMachineMass, latestWeighings, loadMassInput, type MachineMass } 
 import { runFigures, type RunSettings, type RunVehicle } from '../loads/run-figures.ts';
 import { matrixInputs, runMatrix, type MatrixInputs } from '../tour/access.service.ts';
 import { splitLimits } from '../split/split-limits.ts';
+import { formatLength, formatMass, type UnitSystem } from '../../../src/domain/units.ts';
 
 /**
  * The impact view: a draft (typed overrides) is applied to the inputs IN MEMORY, every affected check is
@@ -23,8 +24,13 @@ import { splitLimits } from '../split/split-limits.ts';
 type Vec3 = [number, number, number];
 type MassInput = MassPropertiesInput & { sectionMargins: Record<string, number | null> };
 
-const kg = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? 'unknown' : `${(Math.round(v * 10) / 10).toLocaleString('en-GB')} kg`);
-const cogText = (c: Vec3 | null | undefined) => (c ? `CoG ${c.map((v) => Math.round(v)).join(', ')} mm` : 'CoG unknown');
+/** The figures of the impact rows in the person's units (masses to 0.1 kg or lb, CoG to the mm or 0.1 in). */
+function figureText(units: UnitSystem) {
+  return {
+    kg: (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? 'unknown' : formatMass(v, units)),
+    cogText: (c: Vec3 | null | undefined) => (c ? `CoG ${c.map((v) => formatLength(v, units)).join(', ')}` : 'CoG unknown'),
+  };
+}
 
 function change(before: ImpactVerdict, after: ImpactVerdict): ImpactRow['change'] {
   if (before === after) return 'changed';
@@ -127,7 +133,8 @@ interface Loaded {
  * venue access (every crate and section at every engagement). Returns every row whose verdict or figures
  * move.
  */
-export async function evaluateDraft(db: Knex, productionId: string, draft: ImpactDraftParsed): Promise<ImpactView & { loaded: Loaded }> {
+export async function evaluateDraft(db: Knex, productionId: string, draft: ImpactDraftParsed, units: UnitSystem = 'metric'): Promise<ImpactView & { loaded: Loaded }> {
+  const { kg, cogText } = figureText(units);
   const rows: ImpactRow[] = [];
   const warnings: string[] = [];
   const [input, weighings, sections, limits] = await Promise.all([
@@ -348,7 +355,7 @@ export async function evaluateDraft(db: Knex, productionId: string, draft: Impac
  * section or part; then every lift plan is brought up to date, so approvals the change undoes are
  * withdrawn at once (with their history). A stale part line (its version given) answers 409.
  */
-export async function applyDraft(db: Knex, actor: Actor, productionId: string, draft: ImpactDraftParsed): Promise<ImpactView> {
+export async function applyDraft(db: Knex, actor: Actor, productionId: string, draft: ImpactDraftParsed, units: UnitSystem = 'metric'): Promise<ImpactView> {
   for (const [action, used] of [
     ['machine.edit', draft.partMasses.length + draft.newAssemblies.length > 0],
     ['liftplan.edit', draft.planHoists.length > 0],
@@ -361,7 +368,7 @@ export async function applyDraft(db: Knex, actor: Actor, productionId: string, d
       if (!d.allowed) throw forbidden(d.reason);
     }
   }
-  const { loaded, ...impact } = await evaluateDraft(db, productionId, draft);
+  const { loaded, ...impact } = await evaluateDraft(db, productionId, draft, units);
   await db.transaction(async (trx) => {
     for (const p of draft.partMasses) {
       const q = trx('machine_part_lines').where({ id: p.lineId, production_id: productionId });
