@@ -113,7 +113,7 @@ function VehicleFigures({ f, u, name }: { f: VehicleFiguresView; u: Units; name:
         </table>
       )}
       {f.steering && f.steering.advice.length > 0 && (
-        <Alert tone="caution" className="mt-3" title={f.steering.withinLimitsBefore ? 'Load placement' : 'Load moved for the axles and CoG'}>
+        <Alert tone="caution" className="mt-3" title={f.steering.alongMm !== 0 || f.steering.acrossMm !== 0 ? 'Load moved for the axles and CoG' : 'Weight distribution'}>
           <ul className="list-disc pl-5">
             {f.steering.advice.map((m) => (
               <li key={m}>{m}</li>
