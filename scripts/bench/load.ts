@@ -2,7 +2,7 @@
  * Load benchmark (`npm run bench:load`): the app on loopback against a durable PostgreSQL cluster, driven by
  * autocannon at 50 concurrent connections, signed in as the demo planner, rigger, venue user and admin.
  *
- *   npm run bench:load -- [--duration 5] [--rounds 3] [--connections 50] [--only health,mass,page,manifest,save,pack]
+ *   npm run bench:load -- [--duration 5] [--rounds 3] [--connections 50] [--only health,me,mass,page,manifest,save,pack]
  *
  * Endpoints, one after another (each: a short warm-up, then `--rounds` measured runs bounded in time and count):
  *   health    GET   /api/health                        reference, not judged: no sign-in, one `select 1`; what this
@@ -56,7 +56,7 @@ const opt = (name: string, dflt: string) => {
 const DURATION_S = Number(opt('duration', '5'));
 const ROUNDS = Math.max(1, Number(opt('rounds', '3')));
 const CONNECTIONS = Number(opt('connections', '50'));
-const ONLY = opt('only', 'health,mass,page,manifest,save,pack').split(',');
+const ONLY = opt('only', 'health,me,mass,page,manifest,save,pack').split(',');
 /** Hard caps on requests per measured round, whatever the duration. */
 const READ_MAX = 50_000;
 const SAVE_MAX = 20_000;
@@ -436,6 +436,17 @@ async function main(): Promise<void> {
         warmupRequests: 500,
         next: () => ({ path: '/api/health', headers: { accept: 'application/json' } }),
         check: (_s, body) => body.includes('"database":"up"'),
+      },
+      {
+        key: 'me',
+        label: 'GET /api/auth/me (reference: signed in)',
+        kind: 'reference',
+        method: 'GET',
+        maxRequests: READ_MAX,
+        warmupRequests: 500,
+        // The least a signed-in request costs here: the session and the person with their memberships.
+        next: () => ({ path: '/api/auth/me', headers: machineReaders().headers(false) }),
+        check: (_s, body) => body.includes('"memberships"'),
       },
       {
         key: 'mass',
