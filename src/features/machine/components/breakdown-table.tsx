@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import type { AssemblyView, BreakdownLineView, MachineMassView, SectionView } from '@domain/contracts/machine.ts';
@@ -61,6 +61,13 @@ export interface BreakdownTableProps {
  * Sorting and filtering run on the server (5,000+ lines); rows are virtualised and the next page is
  * fetched as the end comes into view, so scrolling stays smooth.
  */
+/** Rows open their panel from the keyboard too: Enter or Space on a focused row. */
+function onEnterOrSpace(e: KeyboardEvent, open: () => void): void {
+  if (e.key !== 'Enter' && e.key !== ' ') return;
+  e.preventDefault();
+  open();
+}
+
 export function BreakdownTable({ productionId, sections, mass, onSelectLine, onSelectAssembly, selectedLineId }: BreakdownTableProps) {
   const u = useUnits();
   const [sorting, setSorting] = useState<SortingState>([]);
@@ -236,7 +243,9 @@ export function BreakdownTable({ productionId, sections, mass, onSelectLine, onS
                     aria-selected={selectedLineId === r.assembly.id}
                     style={style}
                     className={cx('flex cursor-pointer items-center gap-3 border-b border-ink-100 bg-tide-50 px-2 text-sm hover:bg-tide-100', selectedLineId === r.assembly.id && 'bg-tide-100')}
+                    tabIndex={onSelectAssembly ? 0 : undefined}
                     onClick={() => onSelectAssembly?.(r.assembly)}
+                    onKeyDown={(e) => onEnterOrSpace(e, () => onSelectAssembly?.(r.assembly))}
                   >
                     <span role="cell" className="font-semibold text-tide-900" style={{ paddingLeft: `${r.depth * 1}rem` }}>
                       {r.assembly.number} {r.assembly.name}
@@ -259,7 +268,9 @@ export function BreakdownTable({ productionId, sections, mass, onSelectLine, onS
                   aria-selected={selectedLineId === r.id}
                   style={{ ...style, gridTemplateColumns: gridTemplate }}
                   className={cx('grid cursor-pointer items-center border-b border-ink-100 text-sm hover:bg-ink-50', selectedLineId === r.id && 'bg-tide-100')}
+                  tabIndex={onSelectLine ? 0 : undefined}
                   onClick={() => onSelectLine?.(r.line)}
+                  onKeyDown={(e) => onEnterOrSpace(e, () => onSelectLine?.(r.line))}
                 >
                   {row.getVisibleCells().map((c) => (
                     <div key={c.id} role="cell" className="truncate px-2">
