@@ -14,6 +14,7 @@ import { runFigures, type RunSettings, type RunVehicle } from '../loads/run-figu
 import { matrixInputs, runMatrix, type MatrixInputs } from '../tour/access.service.ts';
 import { splitLimits } from '../split/split-limits.ts';
 import { formatLength, formatMass, type UnitSystem } from '../../../src/domain/units.ts';
+import { sectionLoad } from '../lifting/lift-loads.ts';
 
 /**
  * The impact view: a draft (typed overrides) is applied to the inputs IN MEMORY, every affected check is
@@ -67,31 +68,7 @@ export function applyMassDraft(input: MassInput, draft: ImpactDraftParsed): Mass
 
 /** Sections as lift loads, read the way the lifting module reads them (lift-loads.ts): weighing first. */
 export function loadsFromMass(mass: MachineMass, sections: SectionRow[]): Map<string, LiftLoadView> {
-  return new Map(
-    sections.map((s): [string, LiftLoadView] => {
-      const m = mass.sections[s.id];
-      const w = m?.weighing ?? null;
-      const cog = m?.cogMm ?? null;
-      const weighedCog: Vec3 | null = w?.cogPlanMm && cog ? [w.cogPlanMm[0], w.cogPlanMm[1], cog[2]] : (cog as Vec3 | null);
-      return [
-        s.id,
-        {
-          sectionId: s.id,
-          code: s.code,
-          name: s.name,
-          massKg: w ? w.massKg : m && m.massKg > 0 ? m.massKg : null,
-          marginPercent: w ? 0 : (m?.marginPercent ?? 0),
-          weighed: Boolean(w),
-          weighedOn: w?.weighedOn ?? null,
-          cogMm: w ? weighedCog : (cog as Vec3 | null),
-          cogUncertaintyMm: s.cog_uncertainty_mm === null ? null : Number(s.cog_uncertainty_mm),
-          boundsMm: (m?.bboxMm as LiftLoadView['boundsMm']) ?? null,
-          complete: w ? true : (m?.complete ?? false),
-          gapCount: w ? 0 : (m?.gaps.length ?? 0),
-        },
-      ];
-    }),
-  );
+  return new Map(sections.map((s) => [s.id, sectionLoad(s, mass)]));
 }
 
 /** What a section weighs for crating and transport: the weighing, else the computed mass with margin (crates.service's rule). */
