@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import type { JobContext } from './runner.ts';
 
 /**
  * tsx's ESM entry, found with createRequire through tsx's own exports map rather than
@@ -41,4 +42,24 @@ export function runOnWorker<TDone>(moduleUrl: URL, workerData: unknown, onMessag
     worker.on('error', (err) => finish(() => reject(err)));
     worker.on('exit', (code) => finish(() => reject(new Error(`The worker stopped (exit code ${code}) before it finished.`))));
   });
+}
+
+type WorkerMessage = { type: string; [k: string]: unknown };
+
+/**
+ * The `onMessage` of runOnWorker for a job: every progress message goes to the job's heartbeat; at most every
+ * `intervalMs` one also goes to `save`, which writes it to the run's own row (what the client polls). A failed
+ * save is only reported through `save`'s own promise: progress is not worth failing a run for.
+ */
+export function progressTo(ctx: JobContext, save: (fraction: number, msg: WorkerMessage) => Promise<unknown>, intervalMs = 250): (msg: WorkerMessage) => void {
+  let lastWrite = 0;
+  return (msg) => {
+    if (msg.type !== 'progress') return;
+    const fraction = Number(msg.fraction);
+    ctx.progress(fraction);
+    const now = Date.now();
+    if (now - lastWrite < intervalMs) return;
+    lastWrite = now;
+    void save(Math.min(0.99, fraction), msg);
+  };
 }

@@ -19,7 +19,7 @@ import { updateVersioned } from '../../http/versioned.ts';
 import type { AppDeps } from '../../app.ts';
 import { enqueueJob } from '../../jobs/queue.ts';
 import { jobRunnerFor } from '../../jobs/runner.ts';
-import { runOnWorker } from '../../jobs/worker-thread.ts';
+import { progressTo, runOnWorker } from '../../jobs/worker-thread.ts';
 import { ensureLoadSettings, loadCrates, toCrateView, toLoadSettingsView, type LoadSettingsRow } from '../crates/crates.repository.ts';
 import { packItem, runFigures, type RunVehicle } from './run-figures.ts';
 
@@ -99,22 +99,15 @@ export function loadRoutes(deps: AppDeps): RouteDef[] {
       const run = await db<RunRow>('packing_runs').where({ id: runId }).first();
       if (!run) return; // deleted meanwhile
       await db('packing_runs').where({ id: runId }).update({ status: 'running', started_at: db.fn.now(), error: null, updated_at: db.fn.now() });
-      let lastWrite = 0;
       const out = await runOnWorker<{ result: NonNullable<RunRow['result']>; figures: NonNullable<RunRow['figures']> }>(
         new URL('./pack.worker.ts', import.meta.url),
         { vehicles: run.input.vehicles, items: run.input.items, options: run.input.options, settings: run.input.settings },
-        (msg) => {
-          if (msg.type !== 'progress') return;
-          const fraction = Number(msg.fraction);
-          ctx.progress(fraction);
-          const now = Date.now();
-          if (now - lastWrite < 250) return;
-          lastWrite = now;
-          void db('packing_runs')
+        progressTo(ctx, (progress, msg) =>
+          db('packing_runs')
             .where({ id: runId, status: 'running' })
-            .update({ progress: Math.min(0.99, fraction), best_utilisation: Number(msg.best) })
-            .catch((err: unknown) => log.warn({ err }, 'packing progress not saved'));
-        },
+            .update({ progress, best_utilisation: Number(msg.best) })
+            .catch((err: unknown) => log.warn({ err }, 'packing progress not saved')),
+        ),
         run.input.options.timeLimitMs + 120_000,
       );
       await db('packing_runs')

@@ -5,7 +5,7 @@ import { checkSplit, type SplitLimits, type SplitResult } from '../../../src/dom
 import { AppError, invalid, notFound } from '../../http/errors.ts';
 import { enqueueJob } from '../../jobs/queue.ts';
 import { jobRunnerFor, type JobRunner } from '../../jobs/runner.ts';
-import { runOnWorker } from '../../jobs/worker-thread.ts';
+import { progressTo, runOnWorker } from '../../jobs/worker-thread.ts';
 import { ensureMachine, type AssemblyRow, type SectionRow } from '../machine/machine.repository.ts';
 import { LOOSE_ASSEMBLY_ID, loadSplitSource, type SplitSource } from './split-input.ts';
 import { splitLimits } from './split-limits.ts';
@@ -81,19 +81,10 @@ export function splitRunner(db: Knex, log: Logger): JobRunner {
       if (!run) return;
       await db('split_runs').where({ id: runId }).update({ status: 'running', error: null, updated_at: db.fn.now() });
       const limits = run.limits.limits as SplitLimits;
-      let lastWrite = 0;
       const result = await runOnWorker<SplitResult>(
         new URL('./split.worker.ts', import.meta.url),
         { assemblies: run.input.assemblies, parts: run.input.parts, limits, options: { seed: run.options.seed, timeLimitMs: run.options.timeLimitMs, maxProposals: run.options.maxProposals, maxIterations: 1e9 } },
-        (msg) => {
-          if (msg.type !== 'progress') return;
-          const fraction = Number(msg.fraction);
-          ctx.progress(fraction);
-          const now = Date.now();
-          if (now - lastWrite < 250) return;
-          lastWrite = now;
-          void db('split_runs').where({ id: runId, status: 'running' }).update({ progress: Math.min(0.99, fraction), updated_at: db.fn.now() }).catch(() => undefined);
-        },
+        progressTo(ctx, (progress) => db('split_runs').where({ id: runId, status: 'running' }).update({ progress, updated_at: db.fn.now() }).catch(() => undefined)),
         run.options.timeLimitMs + 60_000,
       );
       await db('split_runs')
