@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import ExcelJS from 'exceljs';
 import { neutraliseCell, tableToCsv, type ExportTable } from '../../../src/domain/breakdown/index.ts';
 import { loadCrates, type ContentRow, type CrateRow } from '../crates/crates.repository.ts';
+import type { PartLineRow } from '../machine/machine.repository.ts';
 
 /**
  * The list customs forms for temporary import ask for (the general list of a carnet: item no., trade
@@ -26,20 +27,11 @@ export interface CustomsRow {
   missing: string[];
 }
 
-export interface PartLineLite {
-  id: string;
-  assembly_id: string | null;
-  section_id: string | null;
-  part_number: string;
-  name: string;
-  quantity: number;
-  unit_mass_kg: number | null;
-  value: number | null;
-  currency: string | null;
-  country_of_origin: string | null;
-  serial_numbers: string[] | null;
-  sort_order: number;
-}
+/** The columns of a part line the customs list reads. */
+export type PartLineLite = Pick<
+  PartLineRow,
+  'id' | 'assembly_id' | 'section_id' | 'part_number' | 'name' | 'quantity' | 'unit_mass_kg' | 'value' | 'currency' | 'country_of_origin' | 'serial_numbers' | 'sort_order'
+>;
 
 export interface AssemblyLite {
   id: string;
