@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import { launchBrowser, signIn, tourProductionId } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -10,13 +9,9 @@ beforeAll(async () => {
 });
 afterAll(async () => browser?.close());
 
-async function signIn(page: Page, role: 'planner' | 'venue'): Promise<string> {
-  const user = DEMO_USERS.find((u) => u.role === role)!;
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/p\/[0-9a-f-]{36}/);
+/** Signs in and returns the production the app opened. */
+async function signInTo(page: Page, role: 'planner' | 'venue'): Promise<string> {
+  await signIn(page, baseUrl, role, 'production');
   return /\/p\/([0-9a-f-]{36})/.exec(page.url())![1];
 }
 
@@ -26,12 +21,9 @@ describe('the planner follows the tour', () => {
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    const productionId = await signIn(page, 'planner');
+    const productionId = await signInTo(page, 'planner');
     // The demo tour is the planner's first production; make sure we are on it.
-    const tourId = await page.evaluate(async () => {
-      const me = await (await fetch('/api/auth/me')).json();
-      return me.user.memberships.find((m: { productionName: string }) => /European and Canadian tour/.test(m.productionName)).productionId as string;
-    });
+    const tourId = await tourProductionId(page);
     await page.goto(`${baseUrl}/p/${tourId ?? productionId}/tour`);
     await page.getByRole('heading', { name: 'Tour & venues', level: 1 }).waitFor();
     const kelderwerf = page.getByRole('listitem').filter({ has: page.getByRole('link', { name: 'Kelderwerf Hall' }) });
@@ -56,7 +48,7 @@ describe('the planner follows the tour', () => {
   it('venue staff edit their own venue, and are refused another one', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
-    const productionId = await signIn(page, 'venue');
+    const productionId = await signInTo(page, 'venue');
     const venues = await page.evaluate(async (p) => (await (await fetch(`/api/productions/${p}/venues`)).json()).venues, productionId);
     expect(venues.map((v: { name: string }) => v.name)).toEqual(['Loomworks Hall']);
     await page.goto(`${baseUrl}/p/${productionId}/tour/venues/${venues[0].id}`);

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import { launchBrowser, signIn } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -19,21 +18,12 @@ async function phone(): Promise<{ context: BrowserContext; page: Page; errors: s
   return { context, page, errors };
 }
 
-async function signInAsVenueStaff(page: Page): Promise<void> {
-  const user = DEMO_USERS.find((u) => u.role === 'venue')!;
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/p\/[0-9a-f-]{36}/);
-}
-
 const count = (page: Page, which: string) => page.getByTestId(`count-${which}`).textContent().then((t) => Number(t));
 
 describe('check-in on a phone', () => {
   it('venue staff open Check-in from the menu, tick a crate in and see the count change', async () => {
     const { context, page, errors } = await phone();
-    await signInAsVenueStaff(page);
+    await signIn(page, baseUrl, 'venue', 'production');
     await page.getByRole('button', { name: 'Menu' }).click();
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Check-in' }).click();
     // Venue staff of Loomworks Hall see their own engagement only.
@@ -59,7 +49,7 @@ describe('check-in on a phone', () => {
 
   it('a scan made offline is kept on the phone and sent when the connection returns', async () => {
     const { context, page } = await phone();
-    await signInAsVenueStaff(page);
+    await signIn(page, baseUrl, 'venue', 'production');
     const productionId = /\/p\/([0-9a-f-]{36})/.exec(page.url())![1];
     await page.goto(`${baseUrl}/p/${productionId}/check-in`);
     await page.getByRole('link', { name: /Loomworks Hall/ }).first().click();

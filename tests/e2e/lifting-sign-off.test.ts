@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, signIn, tourProductionId } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -10,28 +9,14 @@ beforeAll(async () => {
 });
 afterAll(async () => browser?.close());
 
-async function signIn(page: Page, role: string): Promise<void> {
-  const user = DEMO_USERS.find((u) => u.email.startsWith(`${role}@`))!;
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
-
-async function tourId(page: Page): Promise<string> {
-  const me = await page.evaluate(async () => (await fetch('/api/auth/me')).json());
-  return me.user.memberships.find((m: { productionName: string }) => /European and Canadian tour/.test(m.productionName)).productionId;
-}
-
 describe('lift plan sign-off in the browser', () => {
   it('a rigger opens the submitted drive core plan, sees figures and cautions, and approves it', async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    await signIn(page, 'rigger');
-    const id = await tourId(page);
+    await signIn(page, baseUrl, 'rigger');
+    const id = await tourProductionId(page);
     await page.goto(`${baseUrl}/p/${id}/lifting`);
     await page.getByRole('heading', { name: 'Lift plans' }).waitFor();
     await page.getByRole('link', { name: /^Drive core: lift off/ }).click();

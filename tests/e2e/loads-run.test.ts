@@ -1,16 +1,11 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { chromium, type Browser } from 'playwright-core';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, signIn } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
 beforeAll(async () => {
-  // Debian's Chromium, headless; WebGL through its software rasteriser, so the 3D view can draw without a GPU.
-  browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--use-angle=swiftshader', '--enable-unsafe-swiftshader', '--ignore-gpu-blocklist', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  browser = await launchBrowser({ webgl: true });
 });
 afterAll(async () => browser?.close());
 
@@ -20,12 +15,7 @@ describe('a packing run in the browser', () => {
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    const user = DEMO_USERS.find((u) => u.role === 'planner')!;
-    await page.goto(`${baseUrl}/`);
-    await page.getByLabel('E-mail').fill(user.email);
-    await page.getByLabel('Password', { exact: true }).fill(user.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    await signIn(page, baseUrl, 'planner');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Crates & loads' }).click();
     await page.getByRole('link', { name: 'BQ1' }).waitFor();
     await page.getByRole('link', { name: /Vehicles and packing runs/ }).click();

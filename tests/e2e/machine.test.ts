@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import { launchBrowser, signIn } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -16,13 +15,8 @@ describe('machine screen in the browser', () => {
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    const user = DEMO_USERS.find((u) => u.role === 'planner')!;
-    await page.goto(`${baseUrl}/`);
-    await page.getByLabel('E-mail').fill(user.email);
-    await page.getByLabel('Password', { exact: true }).fill(user.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await signIn(page, baseUrl, 'planner');
     const nav = page.getByRole('navigation', { name: 'Main' });
-    await nav.waitFor();
     // The demo tour holds the machine; the switcher may have landed on the other production.
     const switcher = page.getByLabel('Production', { exact: true });
     const tour = await switcher.locator('option', { hasText: 'European' }).getAttribute('value');

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import { launchBrowser, signIn, type DemoRole } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -9,15 +8,6 @@ beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(async () => browser?.close());
-
-async function signIn(page: Page, role: string): Promise<void> {
-  const user = DEMO_USERS.find((u) => u.email.startsWith(`${role}@`))!;
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
 
 async function navLabels(page: Page): Promise<string[]> {
   const nav = page.getByRole('navigation', { name: 'Main' });
@@ -38,7 +28,7 @@ describe('each role signs in and sees its own navigation', () => {
       const page = await context.newPage();
       const errors: string[] = [];
       page.on('pageerror', (e) => errors.push(e.message));
-      await signIn(page, role);
+      await signIn(page, baseUrl, role as DemoRole);
       const labels = await navLabels(page);
       for (const l of want.has) expect(labels).toContain(l);
       for (const l of want.hasNot) expect(labels).not.toContain(l);
@@ -56,7 +46,7 @@ describe('production switcher', () => {
   it('moves the planner to the other production at the same screen', async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
-    await signIn(page, 'planner');
+    await signIn(page, baseUrl, 'planner');
     const nav = page.getByRole('navigation', { name: 'Main' });
     await nav.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL(/\/p\/[^/]+\/settings$/);

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
-import { launchBrowser } from './browser.ts';
+import { launchBrowser, signIn } from './browser.ts';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -16,12 +15,7 @@ describe('the split advisor in the browser', () => {
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    const user = DEMO_USERS.find((u) => u.role === 'planner')!;
-    await page.goto(`${baseUrl}/`);
-    await page.getByLabel('E-mail').fill(user.email);
-    await page.getByLabel('Password', { exact: true }).fill(user.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    await signIn(page, baseUrl, 'planner');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Split advisor' }).click();
     const size = page.getByRole('region', { name: 'Size limit' });
     await size.waitFor({ timeout: 20_000 });

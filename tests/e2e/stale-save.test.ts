@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './browser.ts';
-import { DEMO_USERS } from '../../seeds/01_demo.ts';
+import { launchBrowser, signIn, tourProductionId } from './browser.ts';
 
 /**
  * Two planners (two browsers) edit the same crate. The first saves; the second, still holding the old version,
@@ -14,15 +13,6 @@ beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(async () => browser?.close());
-
-async function signIn(page: Page): Promise<void> {
-  const user = DEMO_USERS.find((u) => u.email.startsWith('planner@'))!;
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
 
 /** Calls the API from the page, with its session and a CSRF token, as the client does. */
 async function call(page: Page, method: string, path: string, body?: unknown): Promise<{ status: number; body: Record<string, unknown> }> {
@@ -42,10 +32,9 @@ describe('two planners save the same crate', () => {
     const [a, b] = [await ca.newPage(), await cb.newPage()];
     const errors: string[] = [];
     for (const p of [a, b]) p.on('pageerror', (e) => errors.push(e.message));
-    await signIn(a);
-    await signIn(b);
-    const me = (await call(a, 'GET', '/api/auth/me')).body as { user: { memberships: { productionId: string; productionName: string }[] } };
-    const pid = me.user.memberships.find((m) => /European and Canadian tour/.test(m.productionName))!.productionId;
+    await signIn(a, baseUrl, 'planner');
+    await signIn(b, baseUrl, 'planner');
+    const pid = await tourProductionId(a);
     const created = await call(a, 'POST', `/api/productions/${pid}/crates`, { code: 'E2E-STALE', kind: 'stock', outerMm: [1000, 800, 600], tareKg: 40 });
     expect(created.status).toBe(201);
     const crateId = (created.body.crate as { id: string }).id;
