@@ -3,6 +3,7 @@
  * autocannon at 50 concurrent connections, signed in as the demo planner, rigger, venue user and admin.
  *
  *   npm run bench:load -- [--duration 5] [--rounds 3] [--connections 50] [--only health,me,mass,page,manifest,save,pack]
+ *                          [--profile DIR]
  *
  * Endpoints, one after another (each: a short warm-up, then `--rounds` measured runs bounded in time and count):
  *   health    GET   /api/health                        reference, not judged: no sign-in, one `select 1`; what this
@@ -38,7 +39,7 @@
 import autocannon from 'autocannon';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { createWriteStream, mkdirSync } from 'node:fs';
+import { createWriteStream, mkdirSync, readFileSync, readdirSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -57,6 +58,8 @@ const DURATION_S = Number(opt('duration', '5'));
 const ROUNDS = Math.max(1, Number(opt('rounds', '3')));
 const CONNECTIONS = Number(opt('connections', '50'));
 const ONLY = opt('only', 'health,me,mass,page,manifest,save,pack').split(',');
+/** `--profile DIR`: the app writes a V8 CPU profile there when it stops (open it in Chrome's DevTools). */
+const PROFILE_DIR = opt('profile', '');
 /** Hard caps on requests per measured round, whatever the duration. */
 const READ_MAX = 50_000;
 const SAVE_MAX = 20_000;
@@ -277,6 +280,55 @@ async function measure(base: string, ep: Endpoint, amount: number, durationS: nu
   };
 }
 
+// ------------------------------------------------------------------------------------------- CPU accounting
+
+/**
+ * CPU time (user + system, seconds) of the app process, of this benchmark's database backends (processes
+ * whose title names its database), and of the whole machine, read from Linux's /proc: which of them a
+ * round's requests cost. Elsewhere (no /proc) it reports nothing.
+ */
+interface CpuSnapshot {
+  app: number;
+  database: number;
+  busy: number;
+  total: number;
+}
+const TICK = 100; // USER_HZ on Linux
+function cpuSnapshot(appPid: number | undefined, database: string): CpuSnapshot | null {
+  try {
+    const fields = (pid: string) => {
+      const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+      return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    };
+    const seconds = (f: string[]) => (Number(f[11]) + Number(f[12])) / TICK;
+    let db = 0;
+    let app = 0;
+    for (const pid of readdirSync('/proc')) {
+      if (!/^\d+$/.test(pid)) continue;
+      try {
+        const f = fields(pid);
+        // The app process and any process it started (worker threads are counted with their process).
+        if (Number(pid) === appPid || Number(f[1]) === appPid) app += seconds(f);
+        const title = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
+        if (title.startsWith('postgres: ') && title.includes(` ${database} `)) db += seconds(f);
+      } catch {
+        // gone meanwhile
+      }
+    }
+    const cpu = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
+    const idle = cpu[3] + (cpu[4] ?? 0);
+    const total = cpu.reduce((a, b) => a + b, 0);
+    return { app, database: db, busy: (total - idle) / TICK, total: total / TICK };
+  } catch {
+    return null;
+  }
+}
+function cpuNote(a: CpuSnapshot | null, b: CpuSnapshot | null, requests: number): string {
+  if (!a || !b || requests === 0) return '';
+  const per = (s: number) => `${((s * 1000) / requests).toFixed(2)} ms`;
+  return `; CPU per request: app ${per(b.app - a.app)}, database ${per(b.database - a.database)}, machine ${per(b.busy - a.busy)} (machine ${Math.round((100 * (b.busy - a.busy)) / Math.max(1e-9, b.total - a.total))}% busy)`;
+}
+
 const ms = (v: number) => (Number.isFinite(v) ? `${v < 10 ? v.toFixed(1) : v.toFixed(0)} ms` : '—');
 const pad = (s: string, n: number) => s.padEnd(n);
 const lpad = (s: string, n: number) => s.padStart(n);
@@ -320,6 +372,7 @@ async function main(): Promise<void> {
       url = cluster.createDatabase('ballast_bench_load') as string;
       log(`database: durable cluster in ${cluster.pgdata} (fsync on), fresh database ballast_bench_load on port ${cluster.port}`);
     }
+    const dbName = new URL(url).pathname.slice(1);
     const setupDb: Knex = createDb(url, 2);
     cleanups.push(() => setupDb.destroy());
     await migrateLatest(setupDb);
@@ -332,7 +385,7 @@ async function main(): Promise<void> {
     const base = `http://127.0.0.1:${port}`;
     const appLog = join(dataDir, 'app.log');
     const out = createWriteStream(appLog, { flags: 'w' });
-    const app: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    const app: ChildProcess = spawn(process.execPath, [...(PROFILE_DIR ? ['--cpu-prof', '--cpu-prof-dir', PROFILE_DIR] : []), '--import', 'tsx', 'server/index.ts'], {
       cwd: root,
       env: {
         PATH: process.env.PATH,
@@ -562,7 +615,9 @@ async function main(): Promise<void> {
       await ep.after?.();
       const rounds: RoundResult[] = [];
       for (let r = 1; r <= ROUNDS; r++) {
+        const cpu0 = cpuSnapshot(app.pid, dbName);
         const res = await measure(base, ep, ep.maxRequests, DURATION_S);
+        const cpu = cpuNote(cpu0, cpuSnapshot(app.pid, dbName), res.requests);
         rounds.push(res);
         const note = await ep.after?.();
         const codes = Object.entries(res.statuses)
@@ -570,7 +625,7 @@ async function main(): Promise<void> {
           .join(' ');
         log(
           `  round ${r}: ${res.requests} requests, ${res.rps.toFixed(0)} req/s, p50 ${ms(res.p50)}, p95 ${ms(res.p95)}, p99 ${ms(res.p99)}, max ${ms(res.max)}; ` +
-            `errors ${errorsOf(res)} (non-2xx ${res.non2xx}, socket ${res.socketErrors}, wrong body ${res.wrongBodies}) [${codes}]${note ? `; ${note}` : ''}`,
+            `errors ${errorsOf(res)} (non-2xx ${res.non2xx}, socket ${res.socketErrors}, wrong body ${res.wrongBodies}) [${codes}]${note ? `; ${note}` : ''}${cpu}`,
         );
       }
       // Best of the rounds: fewest errors, then lowest p95 (noise from other work on the machine only adds).

@@ -73,6 +73,11 @@ export interface MountedRoute {
 
 export const routeTable: MountedRoute[] = [];
 
+/** An answer already serialized as JSON (a cached view), sent as it is instead of through res.json. */
+export class JsonText {
+  constructor(readonly text: string) {}
+}
+
 export function route(def: RouteDef): RouteDef {
   return def;
 }
@@ -101,6 +106,7 @@ export function mountRoutes(router: Router, base: string, defs: RouteDef[], csrf
         const out = await def.handler(req, res);
         if (!res.headersSent) {
           if (out === undefined) res.status(204).end();
+          else if (out instanceof JsonText) res.type('application/json').send(out.text);
           else res.json(out);
         }
       } catch (err) {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type Agent, type TestApp } from './helpers.ts';
 import { machineTestProduction } from './machine-helpers.ts';
-import { FingerprintCache, machineFingerprint } from '../../server/modules/machine/machine-cache.ts';
+import { FingerprintCache, MACHINE_TABLES, machineFingerprint } from '../../server/modules/machine/machine-cache.ts';
 
 /**
  * Mass properties and the breakdown's order are cached per state of the breakdown. Two app instances on one
@@ -105,6 +105,15 @@ describe('breakdown page lines', () => {
     expect(body.lines.find((x: { id: string }) => x.id !== l.id).instances).toEqual([]);
     expect(body.assemblies.map((a: { number: string }) => a.number)).toEqual(['ASM-1']);
   });
+
+  it('are served again from the cache, and show a mesh added straight into the database at once', async () => {
+    const l = lines[5];
+    const hasMesh = async () => (await onA.get(`${base}/breakdown?sectionId=${sectionId}&sort=partNumber&limit=10`).expect(200)).body.lines.find((x: { id: string }) => x.id === l.id).hasMesh;
+    expect(await hasMesh()).toBe(false);
+    expect(await hasMesh()).toBe(false);
+    await a.db('machine_meshes').insert({ production_id: productionId, part_line_id: l.id, file_name: 'x.stl', length_unit: 'mm', stl: Buffer.alloc(84), size_bytes: 84, triangle_count: 0, volume_mm3: 0, cog_mm: JSON.stringify([0, 0, 0]), bbox_mm: JSON.stringify({ minMm: [0, 0, 0], maxMm: [0, 0, 0] }) });
+    expect(await hasMesh()).toBe(true);
+  });
 });
 
 describe('fingerprint and cache', () => {
@@ -124,6 +133,36 @@ describe('fingerprint and cache', () => {
       })
       .catch(() => undefined);
     expect(await machineFingerprint(a.db, productionId)).toBe(afterUpdate);
+  });
+
+  it('is raised once per committed transaction, however many rows it wrote', async () => {
+    const revision = async () => Number((await a.db('machine_revisions').where({ production_id: productionId }).first('revision')).revision);
+    const r0 = await revision();
+    await a.db.transaction(async (trx) => {
+      for (const l of lines.slice(3)) await trx('machine_part_lines').where({ id: l.id }).update({ notes: 'batch' });
+      // Not before the commit: a reader in the meantime keeps the old value.
+      expect(await revision()).toBe(r0);
+    });
+    expect(await revision()).toBe(r0 + 1);
+  });
+
+  it('has a revision trigger on every table the figures are read from', async () => {
+    const { rows } = (await a.db.raw(
+      `select c.relname as table, count(*) filter (where t.tgdeferrable) as deferred, count(*) filter (where (t.tgtype & 32) <> 0) as on_truncate
+         from pg_trigger t join pg_class c on c.oid = t.tgrelid
+        where t.tgfoid in ('ballast_machine_revision_bump'::regproc, 'ballast_machine_revision_bump_all'::regproc)
+        group by c.relname`,
+    )) as { rows: { table: string; deferred: string; on_truncate: string }[] };
+    expect(Object.fromEntries(rows.map((r) => [r.table, [Number(r.deferred), Number(r.on_truncate)]]))).toEqual(Object.fromEntries(MACHINE_TABLES.map((t) => [t, [1, 1]])));
+  });
+
+  it('lets a production with a breakdown be deleted, its revision going with it', async () => {
+    const gone = await machineTestProduction(a.db, 'Machine cache, deleted');
+    const [m] = await a.db('machines').insert({ production_id: gone, name: '' }).returning('id');
+    await a.db('machine_sections').insert({ production_id: gone, machine_id: m.id, code: 'G' });
+    expect(await machineFingerprint(a.db, gone)).toMatch(/^\d+@\d+$/);
+    await a.db('productions').where({ id: gone }).delete();
+    expect(await machineFingerprint(a.db, gone)).toBe('none');
   });
 
   it('shares one computation between concurrent requests, keeps no failure, and freezes values', async () => {

@@ -4,30 +4,25 @@ import type { Knex } from 'knex';
  * Caching of figures computed from a production's machine breakdown (mass properties, the breakdown's
  * order), safe with several app servers sharing one database.
  *
- * Each cached value is stored with a fingerprint of the rows it was computed from: per table, the row
- * count and the sum of the rows' `xmin` (the id of the transaction that wrote each row version).
- * Any committed insert, update or delete changes it: an insert raises the count, a delete lowers the count
- * or (with inserts in the same transaction) replaces old xmins by the newer transaction's, and an update
- * replaces a row version's xmin by a newer one. So a value is served only while its rows are exactly as
- * they were, whichever server wrote them. The fingerprint is read before the rows, so a value may be newer
- * than its fingerprint, never older. (VACUUM FREEZE shows frozen rows' xmin as 2: that only makes a
- * fingerprint change without a write, a recomputation.) Reading the fingerprint costs one query over the
- * production's rows that returns one short string; computing the figures reads every row and runs the core.
- *
- * Why not a revision counter bumped by triggers, or NOTIFY: both make every write in a production (or, for
- * NOTIFY, in the database) wait for the previous writer's commit to reach the disk, which the load benchmark
- * would feel in every save.
+ * Each cached value is stored with the fingerprint of the breakdown it was computed from: the production's
+ * row in machine_revisions, whose revision PostgreSQL raises when any transaction that wrote a row of the
+ * breakdown's tables commits (migration create-machine-revisions: deferred triggers, so whoever wrote it,
+ * whichever server, and also a write straight into the database). The fingerprint also holds the row
+ * version's xmin (the id of the transaction that wrote it), so a revision row deleted and made again never
+ * repeats an old fingerprint. The fingerprint is read before the rows and a commit raises the revision
+ * atomically with its rows, so a value may be newer than its fingerprint, never older. Reading it is one
+ * primary-key lookup; computing the figures reads every row and runs the core.
  */
 
-/** The tables a machine breakdown is read from, each with a `production_id` column. */
-export const MACHINE_TABLES = ['machines', 'machine_sections', 'machine_assemblies', 'machine_part_lines', 'machine_part_instances', 'machine_section_add_ons', 'machine_weighings'] as const;
+/** The tables a machine breakdown is read from, each with a `production_id` column and a revision trigger. */
+export const MACHINE_TABLES = ['machines', 'machine_sections', 'machine_assemblies', 'machine_part_lines', 'machine_part_instances', 'machine_section_add_ons', 'machine_weighings', 'machine_meshes'] as const;
 export type MachineTable = (typeof MACHINE_TABLES)[number];
 
-/** One short string that changes whenever any row of these tables in this production changes. */
-export async function machineFingerprint(db: Knex, productionId: string, tables: readonly MachineTable[] = MACHINE_TABLES): Promise<string> {
-  const parts = tables.map((t) => `(select count(*) || ':' || coalesce(sum(xmin::text::bigint), 0) from ${t} where production_id = :p)`);
-  const { rows } = (await db.raw(`select concat_ws('/', ${parts.join(', ')}) as fp`, { p: productionId })) as { rows: { fp: string }[] };
-  return rows[0].fp;
+/** One short string that changes whenever any row of the production's breakdown changes. */
+export async function machineFingerprint(db: Knex, productionId: string): Promise<string> {
+  const row = (await db('machine_revisions').where({ production_id: productionId }).first(db.raw('revision::text as revision'), db.raw('xmin::text as xmin'))) as { revision: string; xmin: string } | undefined;
+  // No row: nothing was ever written to this production's breakdown (or the production is gone).
+  return row ? `${row.revision}@${row.xmin}` : 'none';
 }
 
 /**

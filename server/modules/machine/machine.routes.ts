@@ -51,7 +51,7 @@ import {
   type PartLineRow,
   type SectionRow,
 } from './machine.repository.ts';
-import { breakdownPage } from './breakdown.query.ts';
+import { breakdownPageJson } from './breakdown.query.ts';
 import { loadMassInput, machineMass } from './mass.service.ts';
 import { weighingRoutes } from './weighing.routes.ts';
 import { meshRoutes } from './mesh.routes.ts';
@@ -140,17 +140,8 @@ export function machineRoutes(deps: AppDeps): RouteDef[] {
       async handler(req) {
         const productionId = pid(req);
         const q = req.query as unknown as BreakdownQuery;
-        const [, { rows, total, assemblies }] = await Promise.all([ensureMachine(db, productionId), breakdownPage(db, productionId, q)]);
-        return {
-          assemblies: assemblies.map(toAssemblyView),
-          lines: rows.map((r) => ({
-            ...toPartLineView(r, r.instances, r.has_mesh),
-            effectiveSectionId: r.effective_section_id,
-            assemblyPath: r.assembly_path ?? [],
-          })),
-          total,
-          offset: q.offset,
-        };
+        const [, page] = await Promise.all([ensureMachine(db, productionId), breakdownPageJson(db, productionId, q)]);
+        return page;
       },
     }),
 
