@@ -14,9 +14,10 @@ function run(tool, args, env) {
   return r;
 }
 
-/** Number of tables in the public schema (0: an empty database). */
+/** Number of tables and functions (the migrations' triggers) in the public schema (0: an empty database). */
 function tableCount(env) {
-  const r = run('psql', ['-X', '-qAt', '-v', 'ON_ERROR_STOP=1', '-c', "select count(*) from information_schema.tables where table_schema = 'public'"], env);
+  const sql = "select (select count(*) from information_schema.tables where table_schema = 'public') + (select count(*) from pg_proc p join pg_namespace n on n.oid = p.pronamespace where n.nspname = 'public')";
+  const r = run('psql', ['-X', '-qAt', '-v', 'ON_ERROR_STOP=1', '-c', sql], env);
   if (r.status !== 0) throw new Error(`Cannot reach ${env.PGDATABASE} on ${env.PGHOST}:${env.PGPORT}: ${(r.stderr || r.stdout).trim()}`);
   return Number(r.stdout.trim());
 }
@@ -32,7 +33,7 @@ export function restore({ file, url, clean = false }) {
   const env = connectionEnv(url);
   const existing = tableCount(env);
   if (existing > 0 && !clean) {
-    throw new Error(`The database ${env.PGDATABASE} already has ${existing} tables. Restore into an empty database, or pass --clean to replace them (their current data is lost).`);
+    throw new Error(`The database ${env.PGDATABASE} already has ${existing} tables and functions. Restore into an empty database, or pass --clean to replace them (their current data is lost).`);
   }
   const args = ['--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${env.PGDATABASE}`];
   if (clean && existing > 0) args.push('--clean', '--if-exists');
@@ -55,7 +56,7 @@ function main() {
   }
   try {
     const out = restore({ file: args.positional[0], url: args.url, clean: args.flags.has('--clean') });
-    console.log(`Restored ${args.positional[0]} into ${out.database} (${out.tablesAfter} tables).`);
+    console.log(`Restored ${args.positional[0]} into ${out.database} (${out.tablesAfter} tables and functions).`);
   } catch (err) {
     console.error(err.message);
     process.exit(1);

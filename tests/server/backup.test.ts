@@ -54,6 +54,9 @@ async function contents(): Promise<Record<string, string>> {
 async function dropAllTables(): Promise<void> {
   const tables: { table_name: string }[] = await db('information_schema.tables').where({ table_schema: 'public', table_type: 'BASE TABLE' }).select('table_name');
   await db.raw(`drop table ${tables.map((t) => `"${t.table_name}"`).join(', ')} cascade`);
+  // …and the migrations' trigger functions: an emptied database has nothing left in its schema.
+  const fns: { name: string }[] = (await db.raw(`select p.oid::regprocedure::text as name from pg_proc p join pg_namespace n on n.oid = p.pronamespace where n.nspname = 'public'`)).rows;
+  for (const f of fns) await db.raw(`drop function ${f.name}`);
 }
 
 describe('database backup and restore', () => {

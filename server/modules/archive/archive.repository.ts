@@ -18,6 +18,7 @@ import type { Knex } from 'knex';
 /** Tables with production rows that are deliberately not archived, with the reason. */
 export const NOT_ARCHIVED: Record<string, string> = {
   invitations: 'pending invitations carry token hashes (credentials); invite people again after a restore',
+  production_revisions: 'revision numbers for caches, raised by the database itself as the restored rows go in',
 };
 
 /** Columns of `users` that travel; the password hash and the admin flag do not. */

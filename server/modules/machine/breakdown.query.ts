@@ -3,7 +3,7 @@ import type { BreakdownQuery } from '../../../src/domain/contracts/machine.ts';
 import { toAssemblyView, toPartLineView, type AssemblyRow, type PartLineRow } from './machine.repository.ts';
 import { JsonText } from '../../http/routes.ts';
 import type { PartInstance } from '../../../src/domain/contracts/mass.ts';
-import { cacheFor, machineFingerprint, type FingerprintCache } from './machine-cache.ts';
+import { cacheFor, machineFingerprint, type FingerprintCache } from '../../db/revision-cache.ts';
 
 /**
  * One page of part lines, filtered and sorted in PostgreSQL so a 5,000-line breakdown never travels whole.
@@ -43,7 +43,7 @@ const pageCaches = new WeakMap<Knex, FingerprintCache<string>>();
 
 /**
  * The order of every line that passes the filters, computed in PostgreSQL and kept per filter and sort while
- * the production's part lines and assemblies are unchanged (machine-cache.ts); a page is then a slice of it
+ * the production's part lines and assemblies are unchanged (server/db/revision-cache.ts); a page is then a slice of it
  * and its lines' own columns, read by id. Sorting the whole breakdown for each page cost tens of
  * milliseconds of database time for 5,000 lines (the load benchmark); checking it is still valid costs one
  * short query.

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { MassPropertiesInput, MassPartLine } from '../../../src/domain/contracts/mass.ts';
 import { compareWeighing, massProperties, type MassPropertiesResult, type NodeMassProperties, type WeighingComparison } from '../../../src/domain/mass/index.ts';
 import { invalid } from '../../http/errors.ts';
-import { cacheFor, machineFingerprint, type FingerprintCache } from './machine-cache.ts';
+import { cacheFor, machineFingerprint, type FingerprintCache } from '../../db/revision-cache.ts';
 import {
   ensureMachine,
   instancesByLine,
@@ -135,7 +135,7 @@ export async function latestWeighings(db: Knex, productionId: string): Promise<M
 const massCaches = new WeakMap<Knex, FingerprintCache<MachineMass>>();
 
 /**
- * The machine's mass properties, computed once per state of its breakdown (machine-cache.ts): reading every
+ * The machine's mass properties, computed once per state of its breakdown (server/db/revision-cache.ts): reading every
  * part line and running the core took tens of milliseconds for 5,000 lines, checking that nothing changed
  * takes one short query. The value is shared and frozen: callers read it, never change it.
  */

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type Agent, type TestApp } from './helpers.ts';
 import { machineTestProduction } from './machine-helpers.ts';
-import { FingerprintCache, MACHINE_TABLES, machineFingerprint } from '../../server/modules/machine/machine-cache.ts';
+import { FingerprintCache, machineFingerprint, revisionFingerprint } from '../../server/db/revision-cache.ts';
+import { REVISION_TABLES } from '../../migrations/20261202110000_create-production-revisions.ts';
 
 /**
  * Mass properties and the breakdown's order are cached per state of the breakdown. Two app instances on one
@@ -136,7 +137,7 @@ describe('fingerprint and cache', () => {
   });
 
   it('is raised once per committed transaction, however many rows it wrote', async () => {
-    const revision = async () => Number((await a.db('machine_revisions').where({ production_id: productionId }).first('revision')).revision);
+    const revision = async () => Number((await a.db('production_revisions').where({ production_id: productionId, scope: 'machine' }).first('revision')).revision);
     const r0 = await revision();
     await a.db.transaction(async (trx) => {
       for (const l of lines.slice(3)) await trx('machine_part_lines').where({ id: l.id }).update({ notes: 'batch' });
@@ -146,14 +147,38 @@ describe('fingerprint and cache', () => {
     expect(await revision()).toBe(r0 + 1);
   });
 
-  it('has a revision trigger on every table the figures are read from', async () => {
+  it('has a revision trigger for each scope on every table of the scope', async () => {
     const { rows } = (await a.db.raw(
-      `select c.relname as table, count(*) filter (where t.tgdeferrable) as deferred, count(*) filter (where (t.tgtype & 32) <> 0) as on_truncate
+      `select c.relname as table, t.tgname as name, t.tgdeferrable as deferred, (t.tgtype & 32) <> 0 as on_truncate
          from pg_trigger t join pg_class c on c.oid = t.tgrelid
-        where t.tgfoid in ('ballast_machine_revision_bump'::regproc, 'ballast_machine_revision_bump_all'::regproc)
-        group by c.relname`,
-    )) as { rows: { table: string; deferred: string; on_truncate: string }[] };
-    expect(Object.fromEntries(rows.map((r) => [r.table, [Number(r.deferred), Number(r.on_truncate)]]))).toEqual(Object.fromEntries(MACHINE_TABLES.map((t) => [t, [1, 1]])));
+        where t.tgfoid in ('ballast_revision_bump'::regproc, 'ballast_revision_bump_all'::regproc)`,
+    )) as { rows: { table: string; name: string; deferred: boolean; on_truncate: boolean }[] };
+    const found = rows.map((r) => `${r.table} ${r.name} ${r.deferred ? 'deferred' : ''}${r.on_truncate ? 'truncate' : ''}`).sort();
+    const expected = Object.entries(REVISION_TABLES)
+      .flatMap(([scope, tables]) => Object.keys(tables).flatMap((t) => [`${t} ${t}_${scope}_revision deferred`, `${t} ${t}_${scope}_revision_truncate truncate`]))
+      .sort();
+    expect(found).toEqual(expected);
+  });
+
+  it('keeps scopes apart, and follows a leg\'s crates through the leg', async () => {
+    const machineBefore = await machineFingerprint(a.db, productionId);
+    const tourBefore = await revisionFingerprint(a.db, productionId, 'tour');
+    const [venue] = await a.db('venues').insert({ production_id: productionId, name: 'Test hall' }).returning('id');
+    const day = '2027-03-01';
+    const [engagement] = await a.db('engagements').insert({ production_id: productionId, venue_id: venue.id, load_in_on: day, show_first_on: day, show_last_on: day, load_out_on: day }).returning('id');
+    const [leg] = await a.db('tour_legs').insert({ production_id: productionId, to_engagement_id: engagement.id }).returning('id');
+    const afterLeg = await revisionFingerprint(a.db, productionId, 'tour');
+    expect(afterLeg).not.toBe(tourBefore);
+    const [vehicle] = await a.db('vehicles').insert({ production_id: productionId, code: 'V1', name: 'Van', kind: 'custom', spec: JSON.stringify({}) }).returning('id');
+    const afterVehicle = await revisionFingerprint(a.db, productionId, 'tour');
+    expect(afterVehicle).not.toBe(afterLeg);
+    await a.db('leg_vehicles').insert({ leg_id: leg.id, vehicle_id: vehicle.id });
+    expect(await revisionFingerprint(a.db, productionId, 'tour')).not.toBe(afterVehicle);
+    expect(await machineFingerprint(a.db, productionId)).toBe(machineBefore);
+    // A leg deleted with its vehicles in one transaction: the leg's own trigger raises the revision.
+    const beforeDelete = await revisionFingerprint(a.db, productionId, 'tour');
+    await a.db('tour_legs').where({ id: leg.id }).delete();
+    expect(await revisionFingerprint(a.db, productionId, 'tour')).not.toBe(beforeDelete);
   });
 
   it('lets a production with a breakdown be deleted, its revision going with it', async () => {

@@ -1,29 +1,32 @@
 import type { Knex } from 'knex';
 
 /**
- * Caching of figures computed from a production's machine breakdown (mass properties, the breakdown's
- * order), safe with several app servers sharing one database.
+ * Caching of computed views (mass properties, the breakdown's order and pages, venue manifests), safe with
+ * several app servers sharing one database.
  *
- * Each cached value is stored with the fingerprint of the breakdown it was computed from: the production's
- * row in machine_revisions, whose revision PostgreSQL raises when any transaction that wrote a row of the
- * breakdown's tables commits (migration create-machine-revisions: deferred triggers, so whoever wrote it,
- * whichever server, and also a write straight into the database). The fingerprint also holds the row
- * version's xmin (the id of the transaction that wrote it), so a revision row deleted and made again never
- * repeats an old fingerprint. The fingerprint is read before the rows and a commit raises the revision
- * atomically with its rows, so a value may be newer than its fingerprint, never older. Reading it is one
- * primary-key lookup; computing the figures reads every row and runs the core.
+ * Each cached value is stored with the fingerprint of the data it was computed from: the production's row
+ * of that scope in production_revisions, whose revision PostgreSQL raises when any transaction that wrote a
+ * row of the scope's tables commits (migration create-production-revisions: deferred triggers, so whoever
+ * wrote it, whichever server, and also a write straight into the database). The fingerprint also holds the
+ * row version's xmin (the id of the transaction that wrote it), so a revision row deleted and made again
+ * never repeats an old fingerprint. The fingerprint is read before the rows and a commit raises the
+ * revision atomically with its rows, so a value may be newer than its fingerprint, never older. Reading it
+ * is one primary-key lookup; computing a view reads every row it needs and runs the core.
  */
 
-/** The tables a machine breakdown is read from, each with a `production_id` column and a revision trigger. */
-export const MACHINE_TABLES = ['machines', 'machine_sections', 'machine_assemblies', 'machine_part_lines', 'machine_part_instances', 'machine_section_add_ons', 'machine_weighings', 'machine_meshes'] as const;
-export type MachineTable = (typeof MACHINE_TABLES)[number];
+export type RevisionScope = 'machine' | 'tour';
 
-/** One short string that changes whenever any row of the production's breakdown changes. */
-export async function machineFingerprint(db: Knex, productionId: string): Promise<string> {
-  const row = (await db('machine_revisions').where({ production_id: productionId }).first(db.raw('revision::text as revision'), db.raw('xmin::text as xmin'))) as { revision: string; xmin: string } | undefined;
-  // No row: nothing was ever written to this production's breakdown (or the production is gone).
+/** One short string that changes whenever any row of the production's data of this scope changes. */
+export async function revisionFingerprint(db: Knex, productionId: string, scope: RevisionScope): Promise<string> {
+  const row = (await db('production_revisions').where({ production_id: productionId, scope }).first(db.raw('revision::text as revision'), db.raw('xmin::text as xmin'))) as
+    | { revision: string; xmin: string }
+    | undefined;
+  // No row: nothing of this scope was ever written for this production (or the production is gone).
   return row ? `${row.revision}@${row.xmin}` : 'none';
 }
+
+/** The fingerprint of a production's machine breakdown. */
+export const machineFingerprint = (db: Knex, productionId: string): Promise<string> => revisionFingerprint(db, productionId, 'machine');
 
 /**
  * A small per-process cache of values by key, each valid for one fingerprint. Concurrent requests for the
