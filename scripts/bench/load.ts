@@ -308,8 +308,9 @@ async function measure(base: string, ep: Endpoint, amount: number, durationS: nu
  * round's requests cost. Elsewhere (no /proc) it reports nothing.
  */
 interface CpuSnapshot {
-  app: number;
-  database: number;
+  /** Seconds of CPU so far per process id. */
+  app: Map<string, number>;
+  database: Map<string, number>;
   busy: number;
   total: number;
 }
@@ -321,16 +322,16 @@ function cpuSnapshot(appPid: number | undefined, database: string): CpuSnapshot 
       return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
     };
     const seconds = (f: string[]) => (Number(f[11]) + Number(f[12])) / TICK;
-    let db = 0;
-    let app = 0;
+    const db = new Map<string, number>();
+    const app = new Map<string, number>();
     for (const pid of readdirSync('/proc')) {
       if (!/^\d+$/.test(pid)) continue;
       try {
         const f = fields(pid);
         // The app process and any process it started (worker threads are counted with their process).
-        if (Number(pid) === appPid || Number(f[1]) === appPid) app += seconds(f);
+        if (Number(pid) === appPid || Number(f[1]) === appPid) app.set(pid, seconds(f));
         const title = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-        if (title.startsWith('postgres: ') && title.includes(` ${database} `)) db += seconds(f);
+        if (title.startsWith('postgres: ') && title.includes(` ${database} `)) db.set(pid, seconds(f));
       } catch {
         // gone meanwhile
       }
@@ -343,10 +344,12 @@ function cpuSnapshot(appPid: number | undefined, database: string): CpuSnapshot 
     return null;
   }
 }
+/** CPU used between two snapshots by the processes alive at the second (one that ended meanwhile is left out). */
+const used = (a: Map<string, number>, b: Map<string, number>) => [...b].reduce((sum, [pid, t]) => sum + t - (a.get(pid) ?? 0), 0);
 function cpuNote(a: CpuSnapshot | null, b: CpuSnapshot | null, requests: number): string {
   if (!a || !b || requests === 0) return '';
   const per = (s: number) => `${((s * 1000) / requests).toFixed(2)} ms`;
-  return `; CPU per request: app ${per(b.app - a.app)}, database ${per(b.database - a.database)}, machine ${per(b.busy - a.busy)} (machine ${Math.round((100 * (b.busy - a.busy)) / Math.max(1e-9, b.total - a.total))}% busy)`;
+  return `; CPU per request: app ${per(used(a.app, b.app))}, database ${per(used(a.database, b.database))}, machine ${per(b.busy - a.busy)} (machine ${Math.round((100 * (b.busy - a.busy)) / Math.max(1e-9, b.total - a.total))}% busy)`;
 }
 
 const paceOf = (ep: Endpoint) => ep.pace ?? PACE;
