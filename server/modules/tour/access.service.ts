@@ -97,7 +97,7 @@ export interface MatrixInputs {
 
 /**
  * Rows (crates, then sections) and columns (engagements in tour order, each with its venue's access and the
- * first vehicle of the leg that delivers there).
+ * vehicles of the leg that delivers there: each crate's own, or all of them for a crate not yet placed).
  */
 export async function matrixInputs(
   db: Knex,
@@ -119,15 +119,23 @@ export async function matrixInputs(
       const e = toEngagementView(row);
       const venue = venues.find((v) => v.id === e.venueId);
       const leg = legs.find((l) => l.toEngagementId === e.id);
-      const vehicle = leg?.vehicles[0] ? vehicles.find((v) => v.id === leg.vehicles[0].id) : undefined;
+      const legVehicles = (leg?.vehicles ?? []).map((lv) => vehicles.find((v) => v.id === lv.id)).filter((v): v is VehicleRow => Boolean(v));
+      const optionsOf = (v: VehicleRow) => vehicleOptions(v).vehicle!;
+      // Each crate is checked with the vehicle the leg puts it on; one not placed yet against each of the
+      // leg's vehicles, the worst result kept (sections, which travel in crates, likewise).
+      const crateVehicles: Record<string, NonNullable<AccessOptions['vehicle']>> = {};
+      for (const c of leg?.crates ?? []) {
+        const v = c.vehicleId ? legVehicles.find((x) => x.id === c.vehicleId) : undefined;
+        if (v) crateVehicles[c.crateId] = optionsOf(v);
+      }
       return {
         venueId: e.venueId,
         engagementId: e.id,
         venueName: e.venueName,
         city: e.venueCity,
         loadInOn: e.loadInOn,
-        vehicleName: vehicle?.name ?? null,
-        venue: { id: e.id, name: e.venueName, access: venueForCore(venue?.access), options: vehicleOptions(vehicle) },
+        vehicleName: legVehicles.length ? legVehicles.map((v) => v.name).join(', ') : null,
+        venue: { id: e.id, name: e.venueName, access: venueForCore(venue?.access), crateVehicles, vehicles: legVehicles.map(optionsOf) },
       };
     });
   return { rows: [...crates.map(crateRow), ...sections], columns };

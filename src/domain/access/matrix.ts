@@ -10,6 +10,28 @@ export interface MatrixVenue {
   name?: string;
   access: AccessVenue;
   options?: AccessOptions;
+  /**
+   * The vehicle each crate arrives on, by crate id: its dock and tail-lift checks use that vehicle. A crate
+   * not listed here is checked against each of `vehicles` when given (it may come on any of them) and the
+   * worst result is kept; otherwise against `options.vehicle`.
+   */
+  crateVehicles?: Readonly<Record<string, NonNullable<AccessOptions['vehicle']>>>;
+  vehicles?: readonly NonNullable<AccessOptions['vehicle']>[];
+}
+
+const VERDICT_RANK: Record<AccessVerdict, number> = { pass: 0, unknown: 1, fail: 2 };
+
+/** One crate at one venue, with the vehicle it comes on, or the worst over the vehicles it may come on. */
+function checkCell(c: MatrixCrate, v: MatrixVenue): ReturnType<typeof checkCrateAccess> {
+  const own = v.crateVehicles?.[c.id];
+  if (own) return checkCrateAccess(c, v.access, { ...v.options, vehicle: own });
+  if (!v.vehicles?.length) return checkCrateAccess(c, v.access, v.options);
+  let worst: ReturnType<typeof checkCrateAccess> | undefined;
+  for (const vehicle of v.vehicles) {
+    const r = checkCrateAccess(c, v.access, { ...v.options, vehicle });
+    if (!worst || VERDICT_RANK[r.verdict] > VERDICT_RANK[worst.verdict]) worst = r;
+  }
+  return worst!;
 }
 
 export interface MatrixCrate extends AccessCrate {
@@ -57,7 +79,7 @@ export function accessMatrix(crates: readonly MatrixCrate[], venues: readonly Ma
   const cells: MatrixCell[] = [];
   for (const c of crates) {
     for (const v of venues) {
-      const r = checkCrateAccess(c, v.access, v.options);
+      const r = checkCell(c, v);
       const t = tightestFinding(r.findings);
       cells.push({ crateId: c.id, venueId: v.id, verdict: r.verdict, findings: r.findings, tightest: t, tightestText: t ? describeMargin(t) : undefined });
     }
