@@ -1,3 +1,4 @@
+import { allQueries } from '../../db/parallel.ts';
 import type { Knex } from 'knex';
 import type { LiftLoadView } from '../../../src/domain/contracts/lifting-api.ts';
 import { machineMass, type MachineMass } from '../machine/mass.service.ts';
@@ -15,9 +16,9 @@ export interface SectionLoads {
 }
 
 export async function sectionLoads(db: Knex, productionId: string): Promise<SectionLoads> {
-  const [mass, sections] = await Promise.all([
-    machineMass(db, productionId),
-    db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
+  const [mass, sections] = await allQueries(db, [
+    () => machineMass(db, productionId),
+    () => db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
   ]);
   const loads = sections.map((s) => sectionLoad(s, mass));
   return { loads, byId: new Map(loads.map((l) => [l.sectionId, l])), mass };

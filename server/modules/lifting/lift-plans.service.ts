@@ -1,3 +1,4 @@
+import { allQueries } from '../../db/parallel.ts';
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import {
@@ -68,10 +69,12 @@ export function planEvaluator(db: Knex, productionId: string) {
       return loads;
     },
     async evaluate(fields: LiftPlanFields): Promise<Evaluation> {
-      loads ??= sectionLoads(db, productionId).then((s) => s.byId);
-      gear ??= gearItems(db, productionId);
-      settings ??= ensureSettings(db, productionId);
-      const [l, g, s, vp] = await Promise.all([loads, gear, settings, fields.venueId ? pointsOf(fields.venueId) : Promise.resolve([])]);
+      const [l, g, s, vp] = await allQueries(db, [
+        () => (loads ??= sectionLoads(db, productionId).then((s) => s.byId)),
+        () => (gear ??= gearItems(db, productionId)),
+        () => (settings ??= ensureSettings(db, productionId)),
+        () => (fields.venueId ? pointsOf(fields.venueId) : Promise.resolve([])),
+      ]);
       const load = l.get(fields.sectionId) ?? null;
       const { input, result } = evaluatePlanFields(fields, {
         load,

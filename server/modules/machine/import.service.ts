@@ -1,3 +1,4 @@
+import { allQueries } from '../../db/parallel.ts';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import {
@@ -156,10 +157,10 @@ export interface ImportAnalysis {
 
 /** Validates the staged file with the core and, when it is valid, diffs it against the current breakdown. */
 export async function analyseImport(db: Knex, productionId: string, file: PartsFile, options: BreakdownImportOptions): Promise<ImportAnalysis> {
-  const [materials, assemblies, existing] = await Promise.all([
-    db('machine_materials').where({ production_id: productionId }).select('code', 'name', 'density_kg_per_m3'),
-    db('machine_assemblies').where({ production_id: productionId }).pluck('number'),
-    currentLines(db, productionId),
+  const [materials, assemblies, existing] = await allQueries(db, [
+    () => db('machine_materials').where({ production_id: productionId }).select('code', 'name', 'density_kg_per_m3'),
+    () => db('machine_assemblies').where({ production_id: productionId }).pluck('number'),
+    () => currentLines(db, productionId),
   ]);
   const result = importBreakdownRows(toRecords(file), options, {
     materials: materials.map((m: { code: string; name: string; density_kg_per_m3: number }) => ({ code: m.code, name: m.name, densityKgPerM3: m.density_kg_per_m3 })),

@@ -1,3 +1,4 @@
+import { allQueries } from '../../db/parallel.ts';
 import type { Knex } from 'knex';
 import type { MassPropertiesInput, MassPartLine } from '../../../src/domain/contracts/mass.ts';
 import { compareWeighing, massProperties, type MassPropertiesResult, type NodeMassProperties, type WeighingComparison } from '../../../src/domain/mass/index.ts';
@@ -21,15 +22,15 @@ import type { WeighingView } from '../../../src/domain/contracts/machine.ts';
  */
 export async function loadMassInput(db: Knex, productionId: string): Promise<MassPropertiesInput & { sectionMargins: Record<string, number | null> }> {
   const machine = await ensureMachine(db, productionId);
-  const [sections, assemblies, lines, addOns, instances] = await Promise.all([
-    db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
-    db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number']),
-    db<PartLineRow>('machine_part_lines')
+  const [sections, assemblies, lines, addOns, instances] = await allQueries(db, [
+    () => db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
+    () => db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number']),
+    () => db<PartLineRow>('machine_part_lines')
       .where({ production_id: productionId })
       .orderBy(['sort_order', 'part_number'])
       .select('id', 'part_number', 'assembly_id', 'section_id', 'quantity', 'unit_mass_kg', 'mass_source', 'cog_mm', 'bbox_mm', 'inertia_kg_mm2'),
-    db<AddOnRow>('machine_section_add_ons').where({ production_id: productionId }).orderBy('name'),
-    instancesByLine(db, productionId),
+    () => db<AddOnRow>('machine_section_add_ons').where({ production_id: productionId }).orderBy('name'),
+    () => instancesByLine(db, productionId),
   ]);
   return {
     marginPercent: Number(machine.margin_percent),
@@ -142,7 +143,7 @@ const massCaches = new WeakMap<Knex, FingerprintCache<MachineMass>>();
 export async function machineMass(db: Knex, productionId: string): Promise<MachineMass> {
   const fingerprint = await machineFingerprint(db, productionId);
   return cacheFor(massCaches, db, 20).get(productionId, fingerprint, async () => {
-    const [input, weighings] = await Promise.all([loadMassInput(db, productionId), latestWeighings(db, productionId)]);
+    const [input, weighings] = await allQueries(db, [() => loadMassInput(db, productionId), () => latestWeighings(db, productionId)]);
     return computeMachineMass(input, weighings);
   });
 }

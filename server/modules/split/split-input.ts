@@ -1,3 +1,4 @@
+import { allQueries } from '../../db/parallel.ts';
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { SplitInputView } from '../../../src/domain/contracts/split.ts';
@@ -54,11 +55,11 @@ export interface SplitSource extends SplitInputView {
  */
 export async function loadSplitSource(db: Knex, productionId: string): Promise<SplitSource> {
   const machine = await ensureMachine(db, productionId);
-  const [assemblies, lines, sections, instances] = await Promise.all([
-    db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number']),
-    db<PartLineRow>('machine_part_lines').where({ production_id: productionId }).orderBy(['sort_order', 'part_number']).select('id', 'part_number', 'assembly_id', 'quantity', 'unit_mass_kg', 'cog_mm', 'bbox_mm', 'version'),
-    db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
-    instancesByLine(db, productionId),
+  const [assemblies, lines, sections, instances] = await allQueries(db, [
+    () => db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number']),
+    () => db<PartLineRow>('machine_part_lines').where({ production_id: productionId }).orderBy(['sort_order', 'part_number']).select('id', 'part_number', 'assembly_id', 'quantity', 'unit_mass_kg', 'cog_mm', 'bbox_mm', 'version'),
+    () => db<SectionRow>('machine_sections').where({ production_id: productionId }).orderBy(['sort_order', 'code']),
+    () => instancesByLine(db, productionId),
   ]);
   const own = new Map<string, Own>();
   const gaps: string[] = [];
