@@ -12,7 +12,16 @@ export const STANDARD_GRAVITY_M_PER_S2 = 9.80665;
 export const MM_PER_INCH = 25.4;
 export const KG_PER_POUND = 0.45359237;
 
+/** Pound-force in newtons: a pound mass under standard gravity (exact from the definitions above). */
+export const N_PER_LBF = KG_PER_POUND * STANDARD_GRAVITY_M_PER_S2;
+/** Pound-force per square foot in kN/m² (a foot is 304.8 mm exactly). */
+export const KN_PER_M2_PER_PSF = N_PER_LBF / (0.3048 * 0.3048) / 1000;
+
 export type LengthUnit = 'mm' | 'cm' | 'm' | 'in' | 'ft';
+/** Floor ratings: kN/m² (metric) or pounds-force per square foot (imperial). */
+export type PressureUnit = 'kN/m²' | 'psf';
+/** Point loads: kN (metric) or pounds-force (imperial). */
+export type ForceUnit = 'kN' | 'lbf';
 export type MassUnit = 'kg' | 'g' | 'lb' | 't';
 export type UnitSystem = 'metric' | 'imperial';
 
@@ -30,6 +39,19 @@ export function toKg(value: number, unit: MassUnit): number {
 }
 export function fromKg(valueKg: number, unit: MassUnit): number {
   return valueKg / KG_PER[unit];
+}
+
+export function toKnPerM2(value: number, unit: PressureUnit): number {
+  return unit === 'psf' ? value * KN_PER_M2_PER_PSF : value;
+}
+export function fromKnPerM2(valueKnPerM2: number, unit: PressureUnit): number {
+  return unit === 'psf' ? valueKnPerM2 / KN_PER_M2_PER_PSF : valueKnPerM2;
+}
+export function toKn(value: number, unit: ForceUnit): number {
+  return unit === 'lbf' ? (value * N_PER_LBF) / 1000 : value;
+}
+export function fromKn(valueKn: number, unit: ForceUnit): number {
+  return unit === 'lbf' ? (valueKn * 1000) / N_PER_LBF : valueKn;
 }
 
 /** Weight force in newtons of a mass in kilograms under standard gravity. */
@@ -59,6 +81,10 @@ export function formatLength(valueMm: number, system: UnitSystem, digits?: numbe
 export function formatMass(valueKg: number, system: UnitSystem, digits = 1): string {
   const q = displayMass(valueKg, system);
   return `${formatNumber(q.value, digits)} ${q.unit}`;
+}
+/** Formats a floor rating held in kN/m², e.g. "5.0 kN/m²" or "104 psf". */
+export function formatPressure(valueKnPerM2: number, system: UnitSystem): string {
+  return system === 'imperial' ? `${formatNumber(fromKnPerM2(valueKnPerM2, 'psf'), 0)} psf` : `${formatNumber(valueKnPerM2, 1)} kN/m²`;
 }
 export function formatNumber(value: number, digits = 0): string {
   if (!Number.isFinite(value)) return '—';

@@ -8,7 +8,7 @@ import { NumberInput } from '../../src/features/tour/components/number-input.tsx
 import { planner } from './helpers/fixtures.ts';
 
 /** Venue measures in the person's units: typed in inches or pounds, held in mm and kg. */
-function Harness({ measure, initial, seen }: { measure: 'length' | 'mass'; initial: number | null; seen: (v: number | null) => void }) {
+function Harness({ measure, initial, seen }: { measure: 'length' | 'mass' | 'pressure' | 'force'; initial: number | null; seen: (v: number | null) => void }) {
   const [v, setV] = useState(initial);
   return (
     <NumberInput
@@ -23,7 +23,7 @@ function Harness({ measure, initial, seen }: { measure: 'length' | 'mass'; initi
   );
 }
 
-function show(units: 'metric' | 'imperial', measure: 'length' | 'mass', initial: number | null, seen: (v: number | null) => void = () => undefined) {
+function show(units: 'metric' | 'imperial', measure: 'length' | 'mass' | 'pressure' | 'force', initial: number | null, seen: (v: number | null) => void = () => undefined) {
   const qc = createQueryClient({ retry: false });
   replaceSession(qc, { ...planner, units });
   render(
@@ -53,6 +53,20 @@ describe('venue measures in the person’s units', () => {
     expect((screen.getByLabelText('Clear width (lb)') as HTMLInputElement).value).toBe('1000');
     fireEvent.change(screen.getByLabelText('Clear width (lb)'), { target: { value: '2000' } });
     expect(seen.at(-1)).toBeCloseTo(907.18474, 9);
+  });
+
+  it('pounds-force per square foot for floor ratings and pounds-force for point loads, held in kN/m² and kN', () => {
+    const seen: (number | null)[] = [];
+    // 150 psf = 7.18 kN/m² (REFERENCES: ASCE 7 stage floors); 1 psf = 47.880 26 Pa (NIST SP 811, 2008, B.8).
+    show('imperial', 'pressure', 150 * 0.04788026, (v) => seen.push(v));
+    expect((screen.getByLabelText('Clear width (psf)') as HTMLInputElement).value).toBe('150');
+    fireEvent.change(screen.getByLabelText('Clear width (psf)'), { target: { value: '100' } });
+    expect(seen.at(-1)).toBeCloseTo(4.788026, 6);
+    show('imperial', 'force', 4.448222, (v) => seen.push(v));
+    // 1 lbf = 4.448 222 N (NIST SP 811, 2008, B.8): 4.448 222 kN = 1,000 lbf.
+    expect((screen.getByLabelText('Clear width (lbf)') as HTMLInputElement).value).toBe('1000');
+    show('metric', 'pressure', 5, () => undefined);
+    expect((screen.getByLabelText('Clear width (kN/m²)') as HTMLInputElement).value).toBe('5');
   });
 
   it('keeps millimetres for a metric person', () => {

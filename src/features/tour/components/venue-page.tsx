@@ -238,9 +238,9 @@ function VenueForm({ productionId, venue }: { productionId: string; venue: Venue
 
         <Section title="Floors">
           <div className="grid gap-3 sm:grid-cols-3">
-            <NumberInput label="Route floor rating" unit="kN/m²" value={a.floorRatingKnPerM2} onChange={(v) => setAccess({ floorRatingKnPerM2: v })} hint="The lowest on the way in." />
-            <NumberInput label="Stage floor rating" unit="kN/m²" value={a.stageFloorRatingKnPerM2} onChange={(v) => setAccess({ stageFloorRatingKnPerM2: v })} />
-            <NumberInput label="Point load rating" unit="kN" value={a.pointLoadRatingKn} onChange={(v) => setAccess({ pointLoadRatingKn: v })} />
+            <NumberInput label="Route floor rating" measure="pressure" value={a.floorRatingKnPerM2} onChange={(v) => setAccess({ floorRatingKnPerM2: v })} hint="The lowest on the way in." />
+            <NumberInput label="Stage floor rating" measure="pressure" value={a.stageFloorRatingKnPerM2} onChange={(v) => setAccess({ stageFloorRatingKnPerM2: v })} />
+            <NumberInput label="Point load rating" measure="force" value={a.pointLoadRatingKn} onChange={(v) => setAccess({ pointLoadRatingKn: v })} />
           </div>
         </Section>
 
