@@ -249,55 +249,77 @@ function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
-async function measure(base: string, ep: Endpoint, amount: number, durationS: number): Promise<RoundResult> {
-  const latencies: number[] = [];
-  const statuses: Record<string, number> = {};
-  let wrong = 0;
-  let finished!: (r: autocannon.Result) => void;
-  let failed!: (e: Error) => void;
-  const done = new Promise<autocannon.Result>((resolve, reject) => {
-    finished = resolve;
-    failed = reject;
-  });
-  const instance = autocannon({
-    url: base,
-    connections: CONNECTIONS,
-    pipelining: 1,
-    duration: durationS,
-    // `amount` would override the duration; maxOverallRequests caps the count and keeps the time bound.
-    maxOverallRequests: amount,
-    timeout: TIMEOUT_S,
-    requests: [
-      {
-        method: ep.method,
-        setupRequest: (req) => ({ ...req, ...ep.next() }),
-        onResponse: (status, body) => {
-          if (status >= 200 && status < 300 && !ep.check(status, body)) wrong++;
-          else if (status >= 300) ep.check(status, body);
+/** What a round's autocannon instances saw: every answer's latency and status, and the errors. */
+class Tally {
+  latencies: number[] = [];
+  statuses: Record<string, number> = {};
+  wrong = 0;
+  non2xx = 0;
+  socketErrors = 0;
+
+  /**
+   * One autocannon instance sending `ep`'s requests, counted here; resolves when it ends. `amount` caps its
+   * requests (autocannon's `amount` would override the duration; maxOverallRequests keeps the time bound).
+   */
+  run(base: string, ep: Endpoint, o: { connections: number; amount: number; durationS: number; connectionRate?: number }): Promise<void> {
+    return new Promise<void>((resolve, reject) => {
+      const instance = autocannon(
+        {
+          url: base,
+          connections: o.connections,
+          pipelining: 1,
+          ...(o.connectionRate ? { connectionRate: o.connectionRate } : {}),
+          duration: o.durationS,
+          maxOverallRequests: o.amount,
+          timeout: TIMEOUT_S,
+          requests: [
+            {
+              method: ep.method,
+              setupRequest: (req) => ({ ...req, ...ep.next() }),
+              onResponse: (status, body) => {
+                if (status >= 200 && status < 300 && !ep.check(status, body)) this.wrong++;
+                else if (status >= 300) ep.check(status, body);
+              },
+            },
+          ],
         },
-      },
-    ],
-  }, (err, res) => (err ? failed(err) : finished(res)));
-  instance.on('response', (_client: unknown, statusCode: number, _bytes: number, ms: number) => {
-    latencies.push(ms);
-    statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
-  });
+        (err, res) => {
+          if (err) return reject(err);
+          this.non2xx += res.non2xx;
+          this.socketErrors += res.errors;
+          resolve();
+        },
+      );
+      instance.on('response', (_client: unknown, statusCode: number, _bytes: number, ms: number) => {
+        this.latencies.push(ms);
+        this.statuses[statusCode] = (this.statuses[statusCode] ?? 0) + 1;
+      });
+    });
+  }
+
+  result(seconds: number): RoundResult {
+    const latencies = [...this.latencies].sort((a, b) => a - b);
+    return {
+      requests: latencies.length,
+      rps: latencies.length / seconds,
+      p50: percentile(latencies, 50),
+      p95: percentile(latencies, 95),
+      p99: percentile(latencies, 99),
+      max: latencies[latencies.length - 1] ?? Number.NaN,
+      non2xx: this.non2xx,
+      socketErrors: this.socketErrors,
+      wrongBodies: this.wrong,
+      statuses: this.statuses,
+    };
+  }
+}
+
+/** Saturation: CONNECTIONS connections, each sending its next request when an answer arrives. */
+async function measure(base: string, ep: Endpoint, amount: number, durationS: number): Promise<RoundResult> {
+  const tally = new Tally();
   const t0 = performance.now();
-  const result = await done;
-  const seconds = (performance.now() - t0) / 1000;
-  latencies.sort((a, b) => a - b);
-  return {
-    requests: latencies.length,
-    rps: latencies.length / seconds,
-    p50: percentile(latencies, 50),
-    p95: percentile(latencies, 95),
-    p99: percentile(latencies, 99),
-    max: latencies[latencies.length - 1] ?? Number.NaN,
-    non2xx: result.non2xx,
-    socketErrors: result.errors,
-    wrongBodies: wrong,
-    statuses,
-  };
+  await tally.run(base, ep, { connections: CONNECTIONS, amount, durationS });
+  return tally.result((performance.now() - t0) / 1000);
 }
 
 // ------------------------------------------------------------------------------------------- CPU accounting
@@ -360,71 +382,20 @@ const paceOf = (ep: Endpoint) => ep.pace ?? PACE;
  * which would send every client's requests at once). Latency is measured from each request's sending.
  */
 async function measurePaced(base: string, ep: Endpoint, durationS: number): Promise<RoundResult> {
-  const latencies: number[] = [];
-  const statuses: Record<string, number> = {};
-  let wrong = 0;
-  let non2xx = 0;
-  let socketErrors = 0;
   const pace = paceOf(ep);
   // Below one request a second a client sends its share of the round's requests at once, and the clients'
   // starts spread over 1 / pace seconds instead of one second.
   const perClientMax = Math.max(1, Math.min(Math.ceil(ep.maxRequests / CONNECTIONS), Math.round(durationS * pace)));
   const spreadMs = 1000 / Math.min(1, pace);
+  const tally = new Tally();
   const t0 = performance.now();
   const runs: Promise<void>[] = [];
   for (let i = 0; i < CONNECTIONS; i++) {
     if (i > 0) await new Promise((r) => setTimeout(r, spreadMs / CONNECTIONS));
-    runs.push(
-      new Promise<void>((resolve, reject) => {
-        const instance = autocannon(
-          {
-            url: base,
-            connections: 1,
-            pipelining: 1,
-            connectionRate: Math.max(1, Math.round(pace)),
-            duration: durationS,
-            maxOverallRequests: perClientMax,
-            timeout: TIMEOUT_S,
-            requests: [
-              {
-                method: ep.method,
-                setupRequest: (req) => ({ ...req, ...ep.next() }),
-                onResponse: (status, body) => {
-                  if (status >= 200 && status < 300 && !ep.check(status, body)) wrong++;
-                  else if (status >= 300) ep.check(status, body);
-                },
-              },
-            ],
-          },
-          (err, res) => {
-            if (err) return reject(err);
-            non2xx += res.non2xx;
-            socketErrors += res.errors;
-            resolve();
-          },
-        );
-        instance.on('response', (_client: unknown, statusCode: number, _bytes: number, ms: number) => {
-          latencies.push(ms);
-          statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
-        });
-      }),
-    );
+    runs.push(tally.run(base, ep, { connections: 1, amount: perClientMax, durationS, connectionRate: Math.max(1, Math.round(pace)) }));
   }
   await Promise.all(runs);
-  const seconds = (performance.now() - t0) / 1000;
-  latencies.sort((a, b) => a - b);
-  return {
-    requests: latencies.length,
-    rps: latencies.length / seconds,
-    p50: percentile(latencies, 50),
-    p95: percentile(latencies, 95),
-    p99: percentile(latencies, 99),
-    max: latencies[latencies.length - 1] ?? Number.NaN,
-    non2xx,
-    socketErrors,
-    wrongBodies: wrong,
-    statuses,
-  };
+  return tally.result((performance.now() - t0) / 1000);
 }
 
 const ms = (v: number) => (Number.isFinite(v) ? `${v < 10 ? v.toFixed(1) : v.toFixed(0)} ms` : '—');
