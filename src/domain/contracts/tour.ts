@@ -368,3 +368,51 @@ export function parseCrateQr(text: string): { productionId: string; crateId: str
   const m = CRATE_QR_RE.exec(text.trim());
   return m ? { productionId: m[1].toLowerCase(), crateId: m[2].toLowerCase() } : null;
 }
+
+/**
+ * A venue manifest as data: everything a PDF renderer, the CSV export, the e-mail and the manifest screen
+ * show, computed once on the server (server/modules/tour/manifest.service.ts). Crates come in load-in
+ * (unloading) order of the leg that delivers to the engagement; each carries its access-check result at
+ * this venue (from the access core, with the truck the leg puts it on for the dock check).
+ */
+export interface ManifestCrate {
+  loadOrder: number;
+  crateId: string;
+  code: string;
+  name: string;
+  lengthMm: number;
+  widthMm: number;
+  heightMm: number;
+  tareKg: number;
+  /** Null while any content's mass is unknown. */
+  netKg: number | null;
+  grossKg: number | null;
+  mayTilt: boolean;
+  vehicleName: string | null;
+  access: { verdict: 'pass' | 'fail' | 'unknown'; tightestText: string | null; findings: AccessFindingView[] };
+}
+
+export interface ManifestData {
+  generatedAt: string;
+  production: { id: string; name: string; machineName: string; paperSize: 'A4' | 'Letter' };
+  /** Units the paperwork of this venue is printed in. */
+  units: 'metric' | 'imperial';
+  engagement: EngagementView;
+  venue: { id: string; name: string; city: string; country: string; address: string; contacts: VenueContact[] };
+  leg: { id: string; departsOn: string | null; fromVenueName: string | null; vehicles: { id: string; code: string; name: string }[] } | null;
+  crates: ManifestCrate[];
+  totals: {
+    crateCount: number;
+    /** Sum of gross masses; null while any crate's gross is unknown (see knownGrossKg). */
+    grossKg: number | null;
+    knownGrossKg: number;
+    unknownMassCount: number;
+    tareKg: number;
+    volumeM3: number;
+  };
+  access: { verdict: 'pass' | 'fail' | 'unknown'; pass: number; fail: number; unknown: number };
+  hangingPoints: HangingPointView[];
+  /** Lift plans that apply at this venue; filled once the lifting module publishes them. */
+  liftPlans: { id: string; title: string; verdict: string }[];
+  notes: string[];
+}

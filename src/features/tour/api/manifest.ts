@@ -1,38 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AccessFindingView, CheckStatusView, EngagementView, HangingPointView, InviteVenueStaffBody, MailingView, ScanView, SendManifestBody, VenueContact } from '@domain/contracts/tour.ts';
+import type { CheckStatusView, InviteVenueStaffBody, MailingView, ManifestData, ScanView, SendManifestBody } from '@domain/contracts/tour.ts';
 import { api, seg } from '../../../lib/api.ts';
 
 export type { MailingView };
 
-/** The manifest data the server computes (server/modules/tour/manifest.service.ts). */
-export interface ManifestView {
-  generatedAt: string;
-  production: { id: string; name: string; machineName: string; paperSize: 'A4' | 'Letter' };
-  units: 'metric' | 'imperial';
-  engagement: EngagementView;
-  venue: { id: string; name: string; city: string; country: string; address: string; contacts: VenueContact[] };
-  leg: { id: string; departsOn: string | null; fromVenueName: string | null; vehicles: { id: string; code: string; name: string }[] } | null;
-  crates: {
-    loadOrder: number;
-    crateId: string;
-    code: string;
-    name: string;
-    lengthMm: number;
-    widthMm: number;
-    heightMm: number;
-    tareKg: number;
-    netKg: number | null;
-    grossKg: number | null;
-    mayTilt: boolean;
-    vehicleName: string | null;
-    access: { verdict: 'pass' | 'fail' | 'unknown'; tightestText: string | null; findings: AccessFindingView[] };
-  }[];
-  totals: { crateCount: number; grossKg: number | null; knownGrossKg: number; unknownMassCount: number; tareKg: number; volumeM3: number };
-  access: { verdict: 'pass' | 'fail' | 'unknown'; pass: number; fail: number; unknown: number };
-  hangingPoints: HangingPointView[];
-  liftPlans: { id: string; title: string; verdict: string }[];
-  notes: string[];
-}
+/** The manifest data the server computes (the shape is the shared contract's). */
+export type ManifestView = ManifestData;
 
 const base = (productionId: string) => `/productions/${seg(productionId)}/tour`;
 
