@@ -1,10 +1,10 @@
 /**
- * Crate materials: density for tare from volume, and the wood kind that decides ISPM 15.
- *
- * TODO(unify): src/domain/mass/materials.ts holds the production's density table (same codes). It was
- * not committed when this was written, so the few crate materials are defined here with their sources;
- * `designCrate` accepts the production's table through `options.materials`, which takes precedence.
+ * Crate materials: density for tare from volume, and the wood kind that decides ISPM 15. Codes, names,
+ * densities and their sources come from the default material table (src/domain/mass/materials.ts, the one
+ * each production starts with); this adds the wood kind. `designCrate` accepts the production's own table
+ * through `options.materials`, which takes precedence for the density.
  */
+import { DEFAULT_MATERIALS } from '../mass/materials.ts';
 
 /** For ISPM 15: solid wood needs treatment and the mark; processed wood (plywood, OSB, MDF) does not. */
 export type WoodKind = 'solid-wood' | 'processed-wood' | 'not-wood';
@@ -18,51 +18,25 @@ export interface CrateMaterial {
   source: string;
 }
 
-/** Densities from REFERENCES §4.4 (Wood Handbook FPL-GTR-190; EN 1991-1-1 Annex A). */
-export const CRATE_MATERIALS: readonly CrateMaterial[] = Object.freeze([
-  {
-    code: 'plywood-birch',
-    name: 'Birch plywood',
-    densityKgPerM3: 680,
-    kind: 'processed-wood',
-    source: '[S, 3rd party / M] about 680 kg/m³; EN 1991-1-1 Annex A gives 7.0 kN/m³ (REFERENCES §4.4)',
-  },
-  {
-    code: 'plywood-softwood',
-    name: 'Softwood plywood',
-    densityKgPerM3: 480,
-    kind: 'processed-wood',
-    source: '[S, 3rd party / M] 460–500 kg/m³, middle taken (REFERENCES §4.4)',
-  },
-  {
-    code: 'osb',
-    name: 'OSB',
-    densityKgPerM3: 620,
-    kind: 'processed-wood',
-    source: '[M] about 600–650 kg/m³ for OSB/3; check the board maker’s sheet',
-  },
-  {
-    code: 'spruce',
-    name: 'Spruce, 12 % moisture',
-    densityKgPerM3: 450,
-    kind: 'solid-wood',
-    source: '[S, 3rd party / M] about 450 kg/m³, USDA Wood Handbook FPL-GTR-190 (REFERENCES §4.4)',
-  },
-  {
-    code: 'steel',
-    name: 'Structural steel',
-    densityKgPerM3: 7850,
-    kind: 'not-wood',
-    source: '[S, 3rd party / M] 7,850 kg/m³ (REFERENCES §4.4)',
-  },
-  {
-    code: 'aluminium',
-    name: 'Aluminium alloy',
-    densityKgPerM3: 2700,
-    kind: 'not-wood',
-    source: '[S, 3rd party / M] 2,700 kg/m³ (REFERENCES §4.4)',
-  },
-].map((m) => Object.freeze(m as CrateMaterial)));
+/** What crates are built from, by code, with its kind for ISPM 15 (ISPM 15 (2018) scope: processed wood is exempt). */
+const CRATE_WOOD_KINDS: Readonly<Record<string, WoodKind>> = {
+  'plywood-birch': 'processed-wood',
+  'plywood-softwood': 'processed-wood',
+  osb: 'processed-wood',
+  mdf: 'processed-wood',
+  spruce: 'solid-wood',
+  steel: 'not-wood',
+  aluminium: 'not-wood',
+};
+
+/** The crate materials, from the default table (REFERENCES §4.4). */
+export const CRATE_MATERIALS: readonly CrateMaterial[] = Object.freeze(
+  Object.entries(CRATE_WOOD_KINDS).map(([code, kind]) => {
+    const m = DEFAULT_MATERIALS.find((x) => x.code === code);
+    if (!m) throw new Error(`Crate material "${code}" is not in the default material table.`);
+    return Object.freeze({ code, name: m.name, densityKgPerM3: m.densityKgPerM3, kind, source: m.source });
+  }),
+);
 
 /** Density lookup: the caller's table first (by code), then this one. Throws naming the code. */
 export function crateMaterial(code: string, table?: readonly { code: string; densityKgPerM3: number }[]): CrateMaterial {

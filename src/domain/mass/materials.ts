@@ -40,6 +40,7 @@ export const DEFAULT_MATERIALS: readonly Material[] = Object.freeze([
   },
   { code: 'plywood-softwood', name: 'Softwood plywood', densityKgPerM3: 480, source: `[S, 3rd party / M] 460–500, middle taken; ${HANDBOOKS}` },
   { code: 'spruce', name: 'Spruce (12 % moisture)', densityKgPerM3: 450, source: '[S, 3rd party / M] USDA Wood Handbook FPL-GTR-190 (2010)' },
+  { code: 'osb', name: 'OSB', densityKgPerM3: 620, source: '[M] about 600–650 for OSB/3, middle taken; check the board maker’s sheet' },
   { code: 'acrylic', name: 'Acrylic (PMMA)', densityKgPerM3: 1190, source: PLASTICS },
   { code: 'acetal', name: 'Acetal (POM)', densityKgPerM3: 1410, source: PLASTICS },
   { code: 'polycarbonate', name: 'Polycarbonate', densityKgPerM3: 1200, source: PLASTICS },
