@@ -375,19 +375,11 @@ export function parseCrateQr(text: string): { productionId: string; crateId: str
  * (unloading) order of the leg that delivers to the engagement; each carries its access-check result at
  * this venue (from the access core, with the truck the leg puts it on for the dock check).
  */
-export interface ManifestCrate {
+export interface ManifestCrate extends Omit<TourCrateView, 'id'> {
   loadOrder: number;
   crateId: string;
-  code: string;
-  name: string;
-  lengthMm: number;
-  widthMm: number;
-  heightMm: number;
-  tareKg: number;
   /** Null while any content's mass is unknown. */
   netKg: number | null;
-  grossKg: number | null;
-  mayTilt: boolean;
   vehicleName: string | null;
   access: { verdict: 'pass' | 'fail' | 'unknown'; tightestText: string | null; findings: AccessFindingView[] };
 }

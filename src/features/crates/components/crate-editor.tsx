@@ -5,6 +5,7 @@ import { Alert, Button, Card, CheckboxField, EmptyState, ErrorState, PageHeader,
 import { errorMessage } from '../../../lib/api.ts';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
 import { apiFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
+import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits, type Units } from '../../../lib/use-units.ts';
 import { conflictCrate, useAddContent, useCrate, useDeleteContent, useUpdateCrate, type ContentInput } from '../api/crates-api.ts';
 import { CrateFigures } from './crate-figures.tsx';
@@ -80,34 +81,24 @@ function changes(base: CrateView, v: Values): Omit<UpdateCrateBody, 'version'> {
 function CrateEditor({ productionId, crate }: { productionId: string; crate: CrateView }) {
   const u = useUnits();
   const mayEdit = useMay('crate.edit');
-  const [base, setBase] = useState(crate);
-  const [values, setValues] = useState<Values>(() => valuesOf(crate));
-  const [errors, setErrors] = useState<FieldErrors>({});
+  const { base, values, errors, setErrors, edit, adopt, setValues } = useDraft(crate, valuesOf);
   const update = useUpdateCrate(productionId, crate.id);
   const theirs = conflictCrate(update.error);
   const diff = changes(base, values);
   const dirty = Object.keys(diff).length > 0;
-  const edit = <K extends keyof Values>(k: K, v: Values[K]) => setValues((s) => ({ ...s, [k]: v }));
   // A newer record arrived (someone saved, then a refetch): take it while nothing is edited; with edits in the
   // form keep them, and the save shows their version beside mine.
   const [seenVersion, setSeenVersion] = useState(crate.version);
   if (crate.version !== seenVersion) {
     setSeenVersion(crate.version);
-    if (!dirty && !theirs && crate.version > base.version) {
-      setBase(crate);
-      setValues(valuesOf(crate));
-    }
+    if (!dirty && !theirs && crate.version > base.version) adopt(crate);
   }
 
   function save(from: CrateView) {
     update.mutate(
       { version: from.version, ...diff },
       {
-        onSuccess: (savedCrate) => {
-          setBase(savedCrate);
-          setValues(valuesOf(savedCrate));
-          setErrors({});
-        },
+        onSuccess: (savedCrate) => adopt(savedCrate, { saved: true }),
         onError: (e) => setErrors(apiFieldErrors(e)),
       },
     );
@@ -131,9 +122,7 @@ function CrateEditor({ productionId, crate }: { productionId: string; crate: Cra
           fields={crateFields(valuesOf(theirs), values, u)}
           note="Keep mine saves only the fields you changed, on top of their version."
           onReload={() => {
-            setBase(theirs);
-            setValues(valuesOf(theirs));
-            setErrors({});
+            adopt(theirs);
             update.reset();
           }}
           onKeepMine={() => save(theirs)}

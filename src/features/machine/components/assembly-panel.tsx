@@ -2,7 +2,8 @@ import { useState, type FormEvent } from 'react';
 import { assemblyView, updateAssemblyBody, type AssemblyView, type NodeMassView, type SectionView } from '@domain/contracts/machine.ts';
 import { Alert, Button, Card, CheckboxField, SelectField, StaleSaveAlert, TextField } from '../../../components/ui/index.ts';
 import { ApiError, errorMessage } from '../../../lib/api.ts';
-import { apiFieldErrors, formLevelError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
+import { apiFieldErrors, formLevelError, validate } from '../../../lib/form-errors.ts';
+import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
 
@@ -23,21 +24,13 @@ const FIELDS = ['number', 'name', 'sectionId', 'keepTogether', 'notes'];
  */
 export function AssemblyPanel({ productionId, assembly, sections, mass, mayEdit, onClose }: { productionId: string; assembly: AssemblyView; sections: SectionView[]; mass: NodeMassView | undefined; mayEdit: boolean; onClose: () => void }) {
   const u = useUnits();
-  const [base, setBase] = useState(assembly);
-  const [values, setValues] = useState<Values>(() => valuesOf(assembly));
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [saved, setSaved] = useState(false);
+  const { base, values, errors, setErrors, saved, edit, adopt } = useDraft(assembly, valuesOf);
   const [deleting, setDeleting] = useState<'no' | 'ask' | 'withContents'>('no');
   const change = useMachineChange(productionId);
   const remove = useMachineChange(productionId);
   const parsed = assemblyView.safeParse(staleCurrent(change.error));
   const theirs = parsed.success ? parsed.data : null;
   const sectionCode = (id: string) => sections.find((s) => s.id === id)?.code ?? 'none (its parent’s)';
-  const edit = <K extends keyof Values>(k: K, v: Values[K]) => {
-    setSaved(false);
-    setValues((s) => ({ ...s, [k]: v }));
-  };
-
   function save(version: number) {
     const start = valuesOf(base);
     const changed: Record<string, unknown> = {};
@@ -48,12 +41,7 @@ export function AssemblyPanel({ productionId, assembly, sections, mass, mayEdit,
     change.mutate(
       { kind: 'updateAssembly', id: base.id, body: checked.data },
       {
-        onSuccess: (res) => {
-          const next = assemblyView.parse((res as { assembly: unknown }).assembly);
-          setBase(next);
-          setValues(valuesOf(next));
-          setSaved(true);
-        },
+        onSuccess: (res) => adopt(assemblyView.parse((res as { assembly: unknown }).assembly), { saved: true }),
         onError: (err) => setErrors(apiFieldErrors(err)),
       },
     );
@@ -99,9 +87,7 @@ export function AssemblyPanel({ productionId, assembly, sections, mass, mayEdit,
                 { label: 'Notes', theirs: theirs.notes, mine: values.notes },
               ]}
               onReload={() => {
-                setBase(theirs);
-                setValues(valuesOf(theirs));
-                setErrors({});
+                adopt(theirs);
                 change.reset();
               }}
               onKeepMine={() => save(theirs.version)}

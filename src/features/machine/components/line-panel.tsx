@@ -1,10 +1,11 @@
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { partLineView, updatePartLineBody, type BreakdownLineView, type MaterialView, type PartLineView } from '@domain/contracts/machine.ts';
 import { MASS_SOURCES, type MassSource } from '@domain/contracts/mass.ts';
 import { fromKg, fromMm, toKg, toMm } from '@domain/units.ts';
 import { Alert, Button, Card, SelectField, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
-import { apiFieldErrors, fieldError, formLevelError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
+import { apiFieldErrors, fieldError, formLevelError, validate } from '../../../lib/form-errors.ts';
+import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
 import { StlUpload } from './stl-upload.tsx';
@@ -46,10 +47,7 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
     material: l.material ?? '',
     cog: (l.cogMm ? l.cogMm.map((v) => num(fromMm(v, u.lengthUnit), 3)) : ['', '', '']) as [string, string, string],
   });
-  const [base, setBase] = useState<PartLineView>(line);
-  const [values, setValues] = useState<Values>(() => valuesOf(line));
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [saved, setSaved] = useState(false);
+  const { base, values, errors, setErrors, saved, setSaved, edit, adopt } = useDraft<PartLineView, Values>(line, valuesOf);
   const change = useMachineChange(productionId);
   const theirsRaw = staleCurrent(change.error);
   const theirs = theirsRaw ? partLineView.safeParse(theirsRaw) : null;
@@ -74,12 +72,7 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
     change.mutate(
       { kind: 'updateLine', id: base.id, body: checked.data },
       {
-        onSuccess: (res) => {
-          const saved = partLineView.parse((res as { line: unknown }).line);
-          setBase(saved);
-          setValues(valuesOf(saved));
-          setSaved(true);
-        },
+        onSuccess: (res) => adopt(partLineView.parse((res as { line: unknown }).line), { saved: true }),
         onError: (err) => setErrors(apiFieldErrors(err)),
       },
     );
@@ -89,10 +82,6 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
     setSaved(false);
     save(base.version);
   }
-  const edit = <K extends keyof Values>(k: K, v: Values[K]) => {
-    setSaved(false);
-    setValues((s) => ({ ...s, [k]: v }));
-  };
   const problem = theirs ? null : formLevelError(change.error, ['name', 'quantity', 'unitMassKg', 'massSource', 'material', 'cogMm']);
 
   return (
@@ -123,7 +112,7 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
               title="Someone else saved this line while you were editing"
               busy={change.isPending}
               fields={staleFields(valuesOf(theirs.data), values, u.massUnit, u.lengthUnit)}
-              onReload={() => (setBase(theirs.data), setValues(valuesOf(theirs.data)), setErrors({}), change.reset())}
+              onReload={() => (adopt(theirs.data), change.reset())}
               onKeepMine={() => save(theirs.data.version)}
             />
           )}
@@ -172,7 +161,7 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
       )}
       {mayEdit && (
         <div className="mt-5 border-t border-ink-100 pt-4">
-          <StlUpload productionId={productionId} line={base} materials={materials} onUploaded={(l) => (setBase(l), setValues(valuesOf(l)))} />
+          <StlUpload productionId={productionId} line={base} materials={materials} onUploaded={(l) => adopt(l)} />
         </div>
       )}
       {change.isError && !theirs && !problem && Object.keys(errors).length === 0 && <Alert tone="danger">{errorMessage(change.error)}</Alert>}

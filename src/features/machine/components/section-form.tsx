@@ -1,8 +1,9 @@
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { createSectionBody, sectionView, updateSectionBody, type SectionView } from '@domain/contracts/machine.ts';
 import { fromMm, toMm } from '@domain/units.ts';
 import { Alert, Button, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
-import { apiFieldErrors, formLevelError, validate, type FieldErrors } from '../../../lib/form-errors.ts';
+import { apiFieldErrors, formLevelError, validate } from '../../../lib/form-errors.ts';
+import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
 
@@ -29,13 +30,10 @@ export function SectionForm({ productionId, section, onDone }: { productionId: s
     margin: s?.marginPercent == null ? '' : String(s.marginPercent),
     uncertainty: s?.cogUncertaintyMm == null ? '' : round(fromMm(s.cogUncertaintyMm, u.lengthUnit), 3),
   });
-  const [base, setBase] = useState(section);
-  const [values, setValues] = useState<Values>(() => valuesOf(section));
-  const [errors, setErrors] = useState<FieldErrors>({});
+  const { base, values, errors, setErrors, edit, adopt } = useDraft<SectionView | undefined, Values>(section, valuesOf);
   const change = useMachineChange(productionId);
   const theirsParsed = base ? sectionView.safeParse(staleCurrent(change.error)) : null;
   const theirs = theirsParsed?.success ? theirsParsed.data : null;
-  const edit = <K extends keyof Values>(k: K, v: Values[K]) => setValues((s) => ({ ...s, [k]: v }));
 
   function fields(v: Values) {
     return {
@@ -80,9 +78,7 @@ export function SectionForm({ productionId, section, onDone }: { productionId: s
           busy={change.isPending}
           fields={staleFields(valuesOf(theirs))}
           onReload={() => {
-            setBase(theirs);
-            setValues(valuesOf(theirs));
-            setErrors({});
+            adopt(theirs);
             change.reset();
           }}
           onKeepMine={() => save(theirs.version)}
