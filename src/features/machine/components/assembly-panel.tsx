@@ -2,7 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { assemblyView, updateAssemblyBody, type AssemblyView, type NodeMassView, type SectionView } from '@domain/contracts/machine.ts';
 import { Alert, Button, Card, CheckboxField, SelectField, StaleSaveAlert, TextField } from '../../../components/ui/index.ts';
 import { ApiError, errorMessage } from '../../../lib/api.ts';
-import { apiFieldErrors, formLevelError, validate } from '../../../lib/form-errors.ts';
+import { formLevelError } from '../../../lib/form-errors.ts';
 import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
@@ -24,7 +24,7 @@ const FIELDS = ['number', 'name', 'sectionId', 'keepTogether', 'notes'];
  */
 export function AssemblyPanel({ productionId, assembly, sections, mass, mayEdit, onClose }: { productionId: string; assembly: AssemblyView; sections: SectionView[]; mass: NodeMassView | undefined; mayEdit: boolean; onClose: () => void }) {
   const u = useUnits();
-  const { base, values, errors, setErrors, saved, edit, adopt } = useDraft(assembly, valuesOf);
+  const { base, values, errors, saved, edit, adopt, send } = useDraft(assembly, valuesOf);
   const [deleting, setDeleting] = useState<'no' | 'ask' | 'withContents'>('no');
   const change = useMachineChange(productionId);
   const remove = useMachineChange(productionId);
@@ -35,15 +35,11 @@ export function AssemblyPanel({ productionId, assembly, sections, mass, mayEdit,
     const start = valuesOf(base);
     const changed: Record<string, unknown> = {};
     for (const k of Object.keys(values) as (keyof Values)[]) if (values[k] !== start[k]) changed[k] = k === 'sectionId' ? values.sectionId || null : values[k];
-    const checked = validate(updateAssemblyBody, { version, ...changed });
-    if (!checked.ok) return setErrors(checked.errors);
-    setErrors({});
-    change.mutate(
-      { kind: 'updateAssembly', id: base.id, body: checked.data },
-      {
-        onSuccess: (res) => adopt(assemblyView.parse((res as { assembly: unknown }).assembly), { saved: true }),
-        onError: (err) => setErrors(apiFieldErrors(err)),
-      },
+    send(
+      updateAssemblyBody,
+      { version, ...changed },
+      (body, handlers) => change.mutate({ kind: 'updateAssembly', id: base.id, body }, handlers),
+      (answer) => assemblyView.parse((answer as { assembly: unknown }).assembly),
     );
   }
   function submit(e: FormEvent) {

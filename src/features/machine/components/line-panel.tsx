@@ -4,7 +4,7 @@ import { MASS_SOURCES, type MassSource } from '@domain/contracts/mass.ts';
 import { fromKg, fromMm, toKg, toMm } from '@domain/units.ts';
 import { Alert, Button, Card, SelectField, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
-import { apiFieldErrors, fieldError, formLevelError, validate } from '../../../lib/form-errors.ts';
+import { fieldError, formLevelError } from '../../../lib/form-errors.ts';
 import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
@@ -47,7 +47,7 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
     material: l.material ?? '',
     cog: (l.cogMm ? l.cogMm.map((v) => num(fromMm(v, u.lengthUnit), 3)) : ['', '', '']) as [string, string, string],
   });
-  const { base, values, errors, setErrors, saved, setSaved, edit, adopt } = useDraft<PartLineView, Values>(line, valuesOf);
+  const { base, values, errors, saved, setSaved, edit, adopt, send } = useDraft<PartLineView, Values>(line, valuesOf);
   const change = useMachineChange(productionId);
   const theirsRaw = staleCurrent(change.error);
   const theirs = theirsRaw ? partLineView.safeParse(theirsRaw) : null;
@@ -66,15 +66,11 @@ export function LinePanel({ productionId, line, materials, mayEdit, onClose }: {
     };
   }
   function save(version: number) {
-    const checked = validate(updatePartLineBody, body(version));
-    if (!checked.ok) return setErrors(checked.errors);
-    setErrors({});
-    change.mutate(
-      { kind: 'updateLine', id: base.id, body: checked.data },
-      {
-        onSuccess: (res) => adopt(partLineView.parse((res as { line: unknown }).line), { saved: true }),
-        onError: (err) => setErrors(apiFieldErrors(err)),
-      },
+    send(
+      updatePartLineBody,
+      body(version),
+      (data, handlers) => change.mutate({ kind: 'updateLine', id: base.id, body: data }, handlers),
+      (answer) => partLineView.parse((answer as { line: unknown }).line),
     );
   }
   function submit(e: FormEvent) {
