@@ -1,6 +1,7 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { ZodType } from 'zod';
 import { isCompanyAction, roleMay, membershipFor, type Action, type Actor } from '../../src/domain/policy/index.ts';
+import type { UnitSystem } from '../../src/domain/units.ts';
 import { AppError, forbidden, invalid, zodIssues } from './errors.ts';
 
 /**
@@ -89,6 +90,8 @@ export const can = (action: Action): Access => ({ kind: 'action', action });
 declare module 'express-serve-static-core' {
   interface Request {
     actor?: Actor;
+    /** The signed-in person's units (read with the actor), for figures written out in words. */
+    units?: UnitSystem;
   }
 }
 

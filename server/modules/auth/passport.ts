@@ -40,7 +40,10 @@ export function loadActor(db: Knex): RequestHandler {
       const ref = req.user as SessionUserRef | undefined;
       if (ref?.id) {
         const found = await users.findWithMemberships(ref.id);
-        if (found?.user.active) req.actor = toActor(found.user, found.memberships);
+        if (found?.user.active) {
+          req.actor = toActor(found.user, found.memberships);
+          req.units = found.user.units;
+        }
       }
       next();
     } catch (err) {

@@ -3,7 +3,6 @@ import { impactApplyBody, impactEvaluateBody, type ImpactDraftParsed } from '../
 import type { AppDeps } from '../../app.ts';
 import { can, route, uuidParam, type RouteDef } from '../../http/routes.ts';
 import { applyDraft, evaluateDraft } from './impact.service.ts';
-import type { UnitSystem } from '../../../src/domain/units.ts';
 
 /**
  * The impact view under `/api/productions/:productionId/impact`: evaluate a draft without saving it, or
@@ -12,8 +11,6 @@ import type { UnitSystem } from '../../../src/domain/units.ts';
 export function impactRoutes(deps: AppDeps): RouteDef[] {
   const { db } = deps;
   const pid = (req: Request) => uuidParam(req, 'productionId');
-  // The rows' figures are written in the person's units.
-  const unitsOf = async (req: Request): Promise<UnitSystem> => ((await db('users').where({ id: req.actor!.userId }).first('units'))?.units as UnitSystem | undefined) ?? 'metric';
   return [
     route({
       method: 'post',
@@ -21,7 +18,7 @@ export function impactRoutes(deps: AppDeps): RouteDef[] {
       access: can('machine.read'),
       body: impactEvaluateBody,
       async handler(req) {
-        const { loaded: _l, ...impact } = await evaluateDraft(db, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, await unitsOf(req));
+        const { loaded: _l, ...impact } = await evaluateDraft(db, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, req.units ?? 'metric');
         return { impact };
       },
     }),
@@ -30,7 +27,7 @@ export function impactRoutes(deps: AppDeps): RouteDef[] {
       path: '/apply',
       access: can('machine.edit'),
       body: impactApplyBody,
-      handler: async (req) => ({ impact: await applyDraft(db, req.actor!, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, await unitsOf(req)), applied: true }),
+      handler: async (req) => ({ impact: await applyDraft(db, req.actor!, pid(req), (req.body as { draft: ImpactDraftParsed }).draft, req.units ?? 'metric'), applied: true }),
     }),
   ];
 }
