@@ -98,20 +98,6 @@ async function orderedLines(db: Knex, productionId: string, q: BreakdownQuery, f
 }
 
 /**
- * One page: the lines of the cached order's slice, read by id with their instances and whether they have a
- * mesh, and every assembly of the machine (cached under the same fingerprint: the client draws the tree).
- */
-export async function breakdownPage(db: Knex, productionId: string, q: BreakdownQuery, fingerprint?: string): Promise<{ rows: BreakdownPageRow[]; total: number; assemblies: AssemblyRow[] }> {
-  const fp = fingerprint ?? (await machineFingerprint(db, productionId));
-  const [ordered, assemblies] = await Promise.all([
-    orderedLines(db, productionId, q, fp),
-    cacheFor(assemblyCaches, db, 32).get(productionId, fp, () => db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number'])),
-  ]);
-  const page = await pageRows(db, productionId, ordered.slice(q.offset, q.offset + q.limit));
-  return { rows: page.rows, total: ordered.length, assemblies };
-}
-
-/**
  * The breakdown screen's answer for one page (`GET …/machine/breakdown`), serialized once per breakdown
  * state and query and kept: people page back and forth through one order while nobody edits, and building
  * and serializing 100 lines was most of the request's cost (the load benchmark: 7.8 ms of app CPU per page
@@ -120,11 +106,16 @@ export async function breakdownPage(db: Knex, productionId: string, q: Breakdown
 export async function breakdownPageJson(db: Knex, productionId: string, q: BreakdownQuery): Promise<JsonText> {
   const fingerprint = await machineFingerprint(db, productionId);
   const text = await cacheFor(pageCaches, db, 128).get(`${productionId} ${JSON.stringify(q)}`, fingerprint, async () => {
-    const { rows, total, assemblies } = await breakdownPage(db, productionId, q, fingerprint);
+    // The order's slice and every assembly of the machine (the client draws the tree), kept under the same fingerprint.
+    const [ordered, assemblies] = await Promise.all([
+      orderedLines(db, productionId, q, fingerprint),
+      cacheFor(assemblyCaches, db, 32).get(productionId, fingerprint, () => db<AssemblyRow>('machine_assemblies').where({ production_id: productionId }).orderBy(['sort_order', 'number'])),
+    ]);
+    const rows = await pageRows(db, productionId, ordered.slice(q.offset, q.offset + q.limit));
     return JSON.stringify({
       assemblies: assemblies.map(toAssemblyView),
       lines: rows.map((r) => ({ ...toPartLineView(r, r.instances, r.has_mesh), effectiveSectionId: r.effective_section_id, assemblyPath: r.assembly_path ?? [] })),
-      total,
+      total: ordered.length,
       offset: q.offset,
     });
   });
@@ -132,8 +123,8 @@ export async function breakdownPageJson(db: Knex, productionId: string, q: Break
 }
 
 /** The page's lines, read by id with their instances and whether they have a mesh, in the order's order. */
-async function pageRows(db: Knex, productionId: string, slice: readonly OrderedLine[]): Promise<{ rows: BreakdownPageRow[]; total: number }> {
-  if (slice.length === 0) return { rows: [], total: 0 };
+async function pageRows(db: Knex, productionId: string, slice: readonly OrderedLine[]): Promise<BreakdownPageRow[]> {
+  if (slice.length === 0) return [];
   const { rows } = (await db.raw(
     `select l.*, exists (select 1 from machine_meshes m where m.part_line_id = l.id) as has_mesh,
             coalesce((select json_agg(json_build_object('positionMm', json_build_array(i.x_mm, i.y_mm, i.z_mm), 'eulerZyxDeg', json_build_array(i.rz_deg, i.ry_deg, i.rx_deg)) order by i.seq)
@@ -148,5 +139,5 @@ async function pageRows(db: Knex, productionId: string, slice: readonly OrderedL
     // A line deleted since the order was read is left out.
     if (r) page.push({ ...r, effective_section_id: o.effective_section_id, assembly_path: o.assembly_path ? [...o.assembly_path] : null });
   }
-  return { rows: page, total: page.length };
+  return page;
 }

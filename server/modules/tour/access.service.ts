@@ -32,11 +32,12 @@ export function venueForCore(access: VenueAccessData | null | undefined): Access
   };
 }
 
-/** The delivering vehicle's bed height and tail lift, for the dock check. */
-export function vehicleOptions(vehicle: VehicleRow | undefined): AccessOptions {
-  if (!vehicle) return {};
+type AccessVehicle = NonNullable<AccessOptions['vehicle']>;
+
+/** A delivering vehicle's bed height and tail lift, for the dock check. */
+export function accessVehicle(vehicle: VehicleRow): AccessVehicle {
   const spec = vehicle.spec ?? {};
-  return { vehicle: { bedHeightMm: spec.bedHeightMm, tailLiftCapacityKg: spec.tailLiftCapacityKg ?? null } };
+  return { bedHeightMm: spec.bedHeightMm, tailLiftCapacityKg: spec.tailLiftCapacityKg ?? null };
 }
 
 export function crateRow(c: TourCrateView): MatrixRowView {
@@ -120,13 +121,12 @@ export async function matrixInputs(
       const venue = venues.find((v) => v.id === e.venueId);
       const leg = legs.find((l) => l.toEngagementId === e.id);
       const legVehicles = (leg?.vehicles ?? []).map((lv) => vehicles.find((v) => v.id === lv.id)).filter((v): v is VehicleRow => Boolean(v));
-      const optionsOf = (v: VehicleRow) => vehicleOptions(v).vehicle!;
       // Each crate is checked with the vehicle the leg puts it on; one not placed yet against each of the
       // leg's vehicles, the worst result kept (sections, which travel in crates, likewise).
-      const crateVehicles: Record<string, NonNullable<AccessOptions['vehicle']>> = {};
+      const crateVehicles: Record<string, AccessVehicle> = {};
       for (const c of leg?.crates ?? []) {
         const v = c.vehicleId ? legVehicles.find((x) => x.id === c.vehicleId) : undefined;
-        if (v) crateVehicles[c.crateId] = optionsOf(v);
+        if (v) crateVehicles[c.crateId] = accessVehicle(v);
       }
       return {
         venueId: e.venueId,
@@ -135,7 +135,7 @@ export async function matrixInputs(
         city: e.venueCity,
         loadInOn: e.loadInOn,
         vehicleName: legVehicles.length ? legVehicles.map((v) => v.name).join(', ') : null,
-        venue: { id: e.id, name: e.venueName, access: venueForCore(venue?.access), crateVehicles, vehicles: legVehicles.map(optionsOf) },
+        venue: { id: e.id, name: e.venueName, access: venueForCore(venue?.access), crateVehicles, vehicles: legVehicles.map(accessVehicle) },
       };
     });
   return { rows: [...crates.map(crateRow), ...sections], columns };

@@ -5,7 +5,7 @@ import { AppError, notFound } from '../../http/errors.ts';
 import { updateVersioned } from '../../http/versioned.ts';
 import type { AppDeps } from '../../app.ts';
 import { pgCode, productionOf, requireVenueScope, toVenueView, venueScopeOf, type VenueRow } from '../tour/tour.repository.ts';
-import { crateRow, runMatrix, sectionRows, vehicleOptions, venueForCore } from '../tour/access.service.ts';
+import { crateRow, runMatrix, sectionRows, venueForCore } from '../tour/access.service.ts';
 import { loadCrates } from '../tour/tour.repository.ts';
 
 /**
@@ -122,7 +122,7 @@ export function venueRoutes(deps: AppDeps): RouteDef[] {
               city: venue.city,
               loadInOn: '',
               vehicleName: null,
-              venue: { id: venue.id, name: venue.name, access: venueForCore(venue.access), options: vehicleOptions(undefined) },
+              venue: { id: venue.id, name: venue.name, access: venueForCore(venue.access) },
             },
           ],
         });
