@@ -86,7 +86,19 @@ export function formatMass(valueKg: number, system: UnitSystem, digits = 1): str
 export function formatPressure(valueKnPerM2: number, system: UnitSystem): string {
   return system === 'imperial' ? `${formatNumber(fromKnPerM2(valueKnPerM2, 'psf'), 0)} psf` : `${formatNumber(valueKnPerM2, 1)} kN/m²`;
 }
+const numberFormats = new Map<number, Intl.NumberFormat>();
+
+/**
+ * A number for people, en-GB grouping, `digits` decimals; '—' when not finite. One formatter per number of
+ * digits, made once: `toLocaleString` with options builds a new one on every call, which made formatting
+ * most of a venue manifest's time (the load benchmark).
+ */
 export function formatNumber(value: number, digits = 0): string {
   if (!Number.isFinite(value)) return '—';
-  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  let f = numberFormats.get(digits);
+  if (!f) {
+    f = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+    numberFormats.set(digits, f);
+  }
+  return f.format(value);
 }

@@ -3,7 +3,7 @@
  * tightest point, and per venue and per crate the tightest point overall.
  */
 import { checkCrateAccess, describeMargin, overallVerdict, tightestFinding } from './check.ts';
-import type { AccessCrate, AccessFinding, AccessOptions, AccessVenue, AccessVerdict } from './types.ts';
+import type { AccessCrate, AccessFinding, AccessOptions, AccessResult, AccessVenue, AccessVerdict } from './types.ts';
 
 export interface MatrixVenue {
   id: string;
@@ -19,19 +19,14 @@ export interface MatrixVenue {
   vehicles?: readonly NonNullable<AccessOptions['vehicle']>[];
 }
 
-const VERDICT_RANK: Record<AccessVerdict, number> = { pass: 0, unknown: 1, fail: 2 };
-
 /** One crate at one venue, with the vehicle it comes on, or the worst over the vehicles it may come on. */
-function checkCell(c: MatrixCrate, v: MatrixVenue): ReturnType<typeof checkCrateAccess> {
+function checkCell(c: MatrixCrate, v: MatrixVenue): AccessResult {
   const own = v.crateVehicles?.[c.id];
   if (own) return checkCrateAccess(c, v.access, { ...v.options, vehicle: own });
   if (!v.vehicles?.length) return checkCrateAccess(c, v.access, v.options);
-  let worst: ReturnType<typeof checkCrateAccess> | undefined;
-  for (const vehicle of v.vehicles) {
-    const r = checkCrateAccess(c, v.access, { ...v.options, vehicle });
-    if (!worst || VERDICT_RANK[r.verdict] > VERDICT_RANK[worst.verdict]) worst = r;
-  }
-  return worst!;
+  const results = v.vehicles.map((vehicle) => checkCrateAccess(c, v.access, { ...v.options, vehicle }));
+  const worst = overallVerdict(results);
+  return results.find((r) => r.verdict === worst)!;
 }
 
 export interface MatrixCrate extends AccessCrate {
