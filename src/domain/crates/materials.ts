@@ -18,7 +18,7 @@ export interface CrateMaterial {
   source: string;
 }
 
-/** What crates are built from, by code, with its kind for ISPM 15 (ISPM 15 (2018) scope: processed wood is exempt). */
+/** What crates are built from, by code, with its kind for ISPM 15 (ISPM 15, REFERENCES §4.3 [S]: processed wood is exempt). */
 const CRATE_WOOD_KINDS: Readonly<Record<string, WoodKind>> = {
   'plywood-birch': 'processed-wood',
   'plywood-softwood': 'processed-wood',
