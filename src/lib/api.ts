@@ -162,3 +162,8 @@ export const api = {
 export function seg(value: string): string {
   return encodeURIComponent(value);
 }
+
+/** The record as it is now on the server, when a save was refused as stale (409 with it); else null. */
+export function staleCurrent<T = Record<string, unknown>>(error: unknown): T | null {
+  return error instanceof ApiError && error.status === 409 && error.current && typeof error.current === 'object' ? (error.current as T) : null;
+}

@@ -183,6 +183,13 @@ export function presentAnalysis(a: ImportAnalysis) {
   const { result, diff } = a;
   const errors = result.problems.filter((p) => p.severity === 'error');
   const pick = (l: BreakdownLine) => ({ partNumber: l.partNumber, assemblyNumber: l.assemblyNumber, name: l.name, quantity: l.quantity, unitMassKg: l.unitMassKg });
+  // Lines placed as instances lose their placements when their quantity changes or they go: say so before.
+  const placementsDropped = diff
+    ? [
+        ...diff.changed.filter((c) => c.before.hasInstances && c.fields.includes('quantity')).map((c) => ({ partNumber: c.key.partNumber, assemblyNumber: c.key.assemblyNumber, why: 'quantity changes' as const })),
+        ...diff.removed.filter((l) => l.hasInstances).map((l) => ({ partNumber: l.partNumber, assemblyNumber: l.assemblyNumber, why: 'line removed' as const })),
+      ]
+    : [];
   return {
     ok: result.ok && !a.diffProblem,
     rowCount: result.rowCount,
@@ -208,13 +215,8 @@ export function presentAnalysis(a: ImportAnalysis) {
         after: Object.fromEntries(c.fields.map((f) => [f, c.after[f]])),
       })),
       removed: diff.removed.slice(0, SHOWN).map(pick),
-      // Lines placed as instances lose their placements when their quantity changes or they go: say so before.
-      placementsDropped: [
-        ...diff.changed.filter((c) => c.before.hasInstances && c.fields.includes('quantity')).map((c) => ({ partNumber: c.key.partNumber, assemblyNumber: c.key.assemblyNumber, why: 'quantity changes' as const })),
-        ...diff.removed.filter((l) => l.hasInstances).map((l) => ({ partNumber: l.partNumber, assemblyNumber: l.assemblyNumber, why: 'line removed' as const })),
-      ].slice(0, SHOWN),
-      placementsDroppedCount:
-        diff.changed.filter((c) => c.before.hasInstances && c.fields.includes('quantity')).length + diff.removed.filter((l) => l.hasInstances).length,
+      placementsDropped: placementsDropped.slice(0, SHOWN),
+      placementsDroppedCount: placementsDropped.length,
     },
   };
 }

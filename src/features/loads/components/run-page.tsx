@@ -4,7 +4,7 @@ import type { PackingRunView, PlacementView, RunItemView, VehicleFiguresView } f
 import { combineMasses } from '@domain/mass/index.ts';
 import { validatePacking } from '@domain/packing/index.ts';
 import { Alert, Badge, Button, Card, EmptyState, ErrorState, PageHeader, PageLoading, SelectField, Spinner, StaleSaveAlert } from '../../../components/ui/index.ts';
-import { ApiError, errorMessage } from '../../../lib/api.ts';
+import { errorMessage, staleCurrent } from '../../../lib/api.ts';
 import { useQueryClient } from '@tanstack/react-query';
 import { useCurrentProduction, useMay } from '../../../lib/current-production.ts';
 import { useUnits, type Units } from '../../../lib/use-units.ts';
@@ -173,7 +173,7 @@ function RunResult({ productionId, run }: { productionId: string; run: Required<
   const [selected, setSelected] = useState<string | null>(null);
   const save = useSavePlacements(productionId, run.id);
   const qc = useQueryClient();
-  const theirs = save.error instanceof ApiError && save.error.status === 409 && save.error.current && typeof save.error.current === 'object' ? (save.error.current as PackingRunView) : null;
+  const theirs = staleCurrent<PackingRunView>(save.error);
   const vehicle = input.vehicles.find((v) => v.id === vehicleId);
   const original = result.placements.filter((p) => p.vehicleId === vehicleId);
   const mine = draft ?? original;

@@ -14,7 +14,7 @@ import type {
   UpdatePartLineBody,
   UpdateSectionBody,
 } from '@domain/contracts/machine.ts';
-import { api, ApiError } from '../../../lib/api.ts';
+import { api } from '../../../lib/api.ts';
 import { machineKeys, machinePath } from './keys.ts';
 
 /**
@@ -96,7 +96,3 @@ export function useMachineChange(productionId: string) {
   });
 }
 
-/** The record as it is now on the server, when a save was refused as stale; else null. */
-export function staleCurrent<T = Record<string, unknown>>(error: unknown): T | null {
-  return error instanceof ApiError && error.status === 409 && error.current && typeof error.current === 'object' ? (error.current as T) : null;
-}

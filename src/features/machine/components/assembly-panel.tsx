@@ -1,11 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { assemblyView, updateAssemblyBody, type AssemblyView, type NodeMassView, type SectionView } from '@domain/contracts/machine.ts';
 import { Alert, Button, Card, CheckboxField, SelectField, StaleSaveAlert, TextField } from '../../../components/ui/index.ts';
-import { ApiError, errorMessage } from '../../../lib/api.ts';
+import { ApiError, errorMessage, staleCurrent } from '../../../lib/api.ts';
 import { formLevelError } from '../../../lib/form-errors.ts';
 import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 
 interface Values {
   number: string;

@@ -3,11 +3,11 @@ import { partLineView, updatePartLineBody, type BreakdownLineView, type Material
 import { MASS_SOURCES, type MassSource } from '@domain/contracts/mass.ts';
 import { fromKg, fromMm, toKg, toMm } from '@domain/units.ts';
 import { Alert, Button, Card, SelectField, StaleSaveAlert, TextField, type StaleField } from '../../../components/ui/index.ts';
-import { errorMessage } from '../../../lib/api.ts';
+import { errorMessage, staleCurrent } from '../../../lib/api.ts';
 import { fieldError, formLevelError } from '../../../lib/form-errors.ts';
 import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 import { StlUpload } from './stl-upload.tsx';
 
 interface Values {

@@ -1,8 +1,8 @@
 import { useState, type FormEvent } from 'react';
 import type { MachineView } from '@domain/contracts/machine.ts';
 import { Alert, Button, TextField } from '../../../components/ui/index.ts';
-import { errorMessage } from '../../../lib/api.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { errorMessage, staleCurrent } from '../../../lib/api.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 
 /** The machine's contingency margin (%), which lifting and packing use for every section without its own. */
 export function MarginForm({ productionId, machine }: { productionId: string; machine: MachineView }) {

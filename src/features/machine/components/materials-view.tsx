@@ -2,8 +2,8 @@ import { useState } from 'react';
 import type { MaterialView } from '@domain/contracts/machine.ts';
 import { formatNumber } from '@domain/units.ts';
 import { Alert, Button, EmptyState, TextField } from '../../../components/ui/index.ts';
-import { errorMessage } from '../../../lib/api.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { errorMessage, staleCurrent } from '../../../lib/api.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 
 /** The production's materials and densities (seeded from the handbook table; planners may edit). */
 export function MaterialsView({ productionId, materials, mayEdit }: { productionId: string; materials: MaterialView[]; mayEdit: boolean }) {

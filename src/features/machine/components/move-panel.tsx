@@ -2,12 +2,12 @@ import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { AssemblyView, MachineMassView, MachineSummaryView } from '@domain/contracts/machine.ts';
 import { Alert, Button, Card, ErrorState, PageLoading, SelectField } from '../../../components/ui/index.ts';
-import { errorMessage } from '../../../lib/api.ts';
+import { errorMessage, staleCurrent } from '../../../lib/api.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { getBreakdownPage } from '../api/get-breakdown.ts';
 import { useMassInput } from '../api/get-machine.ts';
 import { machineKeys } from '../api/keys.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 import { previewMove } from './preview-mass.ts';
 import { SectionCard } from './section-card.tsx';
 

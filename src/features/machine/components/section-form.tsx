@@ -5,7 +5,8 @@ import { Alert, Button, StaleSaveAlert, TextField, type StaleField } from '../..
 import { apiFieldErrors, formLevelError, validate } from '../../../lib/form-errors.ts';
 import { useDraft } from '../../../lib/use-draft.ts';
 import { useUnits } from '../../../lib/use-units.ts';
-import { staleCurrent, useMachineChange } from '../api/edit-machine.ts';
+import { staleCurrent } from '../../../lib/api.ts';
+import { useMachineChange } from '../api/edit-machine.ts';
 
 interface Values {
   code: string;

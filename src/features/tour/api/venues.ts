@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { AccessMatrixView, CreateVenueBody, HangingPointView, UpdateVenueBody, VenueView } from '@domain/contracts/tour.ts';
-import { api, ApiError, seg } from '../../../lib/api.ts';
+import { api, seg, staleCurrent } from '../../../lib/api.ts';
 
 export type { VenueView, HangingPointView };
 
@@ -45,7 +45,7 @@ export const useHangingPoints = (productionId: string, venueId: string) => useQu
 
 /** The venue as it is now on the server, when a save was refused as stale; else null. */
 export function venueConflict(error: unknown): VenueView | null {
-  return error instanceof ApiError && error.status === 409 ? (error.current as VenueView) : null;
+  return staleCurrent<VenueView>(error);
 }
 
 /** `PATCH …/venues/:venueId` {version, …changes}; 409 carries the current venue. */
