@@ -5,6 +5,11 @@ export interface UploadProgress {
   totalBytes: number;
 }
 
+/** How much of an upload has gone, 0 to 1 (0 while the size is not known). */
+export function uploadedShare(p: UploadProgress | null): number {
+  return p && p.totalBytes > 0 ? Math.min(1, p.loadedBytes / p.totalBytes) : 0;
+}
+
 /**
  * Sends a multipart form with one file and reports upload progress (fetch cannot report it; XMLHttpRequest
  * can). Carries the session cookie and a CSRF token like every other change; errors become ApiError with the

@@ -2,6 +2,7 @@ import { useId, useRef, useState, type FormEvent } from 'react';
 import { Alert, Button, Card, EmptyState, ErrorState, PageHeader, PageLoading, buttonClasses } from '../../../components/ui/index.ts';
 import { errorMessage } from '../../../lib/api.ts';
 import { useAllProductions } from '../api/get-productions.ts';
+import { uploadedShare } from '../../../lib/upload.ts';
 import { ARCHIVE_EXTENSIONS, archiveDownloadUrl, useRestoreArchive, type UploadProgress } from '../api/restore-archive.ts';
 
 /** Download each production as one archive file; restore an archive into this installation. */
@@ -39,9 +40,7 @@ export function ArchivesPage() {
   );
 }
 
-function percent(p: UploadProgress | null): number {
-  return p && p.totalBytes > 0 ? Math.min(100, Math.round((p.loadedBytes / p.totalBytes) * 100)) : 0;
-}
+const percent = (p: UploadProgress | null): number => Math.round(uploadedShare(p) * 100);
 
 function RestoreCard() {
   const inputId = useId();

@@ -19,6 +19,7 @@ import {
   type ImportUnits,
   type StagedImport,
 } from '../api/import-parts.ts';
+import { uploadedShare } from '../../../lib/upload.ts';
 
 type Step = 'upload' | 'map' | 'preview' | 'done';
 const PROBLEMS_SHOWN = 300;
@@ -96,7 +97,7 @@ function ImportWizard({ productionId }: { productionId: string }) {
     setError(null);
     setUploadShare(0);
     try {
-      const s = await uploadPartsList(productionId, file, (p) => setUploadShare(p.totalBytes ? p.loadedBytes / p.totalBytes : 0));
+      const s = await uploadPartsList(productionId, file, (p) => setUploadShare(uploadedShare(p)));
       setStaged(s);
       setOptions({ mapping: s.suggested.mapping as BreakdownImportOptions['mapping'], units: s.suggested.units, decimalSeparator: s.suggested.decimalSeparator, allowNewAssemblies: s.suggested.allowNewAssemblies });
       setStep('map');

@@ -6,7 +6,7 @@ import { Alert, Button, ChoiceGroup, Field, SelectField, controlClasses } from '
 import { errorMessage } from '../../../lib/api.ts';
 import { useUnits } from '../../../lib/use-units.ts';
 import { machineKeys, machinePath } from '../api/keys.ts';
-import { uploadFile } from '../../../lib/upload.ts';
+import { uploadedShare, uploadFile } from '../../../lib/upload.ts';
 import type { z } from 'zod';
 
 type StlUnit = z.infer<typeof stlUnit>;
@@ -37,7 +37,7 @@ export function StlUpload({ productionId, line, materials, onUploaded }: { produ
         file,
         file.name,
         { unit, ...(material ? { material } : {}) },
-        (p) => setProgress(p.totalBytes ? p.loadedBytes / p.totalBytes : 0),
+        (p) => setProgress(uploadedShare(p)),
       );
       setResult({ mesh: meshView.parse(res.mesh), notes: res.notes });
       onUploaded(partLineView.parse(res.line));
